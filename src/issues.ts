@@ -1,0 +1,76 @@
+/**
+ * The core's issue union: every way a user's input can make a core call fail.
+ *
+ * Issues carry data, not prose. `field` is a dotted path into the input that was given
+ * (`params.K`, `rule.surveyLag`, `start[2]`), so an edge can name it to the user.
+ */
+export type Issue =
+  | {
+      code: "param_out_of_range";
+      field: string;
+      value: number;
+      min?: number;
+      max?: number;
+      minInclusive?: boolean;
+      maxInclusive?: boolean;
+    }
+  | { code: "not_finite"; field: string; received: string }
+  | { code: "missing_field"; field: string }
+  | { code: "wrong_type"; field: string; expected: string; received: string }
+  | { code: "not_an_integer"; field: string; value: number }
+  | { code: "unknown_family"; field: string; value: string; allowed: readonly string[] }
+  | { code: "unknown_rule"; field: string; value: string; allowed: readonly string[] }
+  | { code: "unknown_option"; field: string; value: string; allowed: readonly string[] }
+  | { code: "unknown_field"; field: string }
+  | { code: "constraint_violated"; field: string; constraint: string }
+  | { code: "no_finite_msy"; field: string; value: number; family: string }
+  | { code: "series_too_short"; minimum: number; actual: number }
+  | { code: "fit_not_converged"; iterations: number };
+
+/** The list of issue codes, derived from the union. */
+export type IssueCode = Issue["code"];
+
+/**
+ * A one-line English rendering of an issue, for logs, the CLI and problem `detail` fields.
+ * The issue itself stays the contract; this text may change.
+ */
+export function describeIssue(issue: Issue): string {
+  switch (issue.code) {
+    case "param_out_of_range":
+      return `${issue.field} = ${issue.value} is outside the allowed range ${rangeText(issue)}`;
+    case "not_finite":
+      return `${issue.field} must be a finite number (received ${issue.received})`;
+    case "missing_field":
+      return `${issue.field} is required`;
+    case "wrong_type":
+      return `${issue.field} must be ${issue.expected} (received ${issue.received})`;
+    case "not_an_integer":
+      return `${issue.field} must be a whole number (received ${issue.value})`;
+    case "unknown_family":
+    case "unknown_rule":
+    case "unknown_option":
+      return `${issue.field} = "${issue.value}" is not one of: ${issue.allowed.join(", ")}`;
+    case "unknown_field":
+      return `${issue.field} is not a recognised field`;
+    case "constraint_violated":
+      return `${issue.field}: ${issue.constraint}`;
+    case "no_finite_msy":
+      return `the ${issue.family} model has no finite MSY at ${issue.field} = ${issue.value} (production grows without bound at low stock)`;
+    case "series_too_short":
+      return `the series has ${issue.actual} usable points; at least ${issue.minimum} are needed`;
+    case "fit_not_converged":
+      return `the fit did not converge after ${issue.iterations} iterations`;
+  }
+}
+
+/** Renders a numeric range such as "(0, 1)" or "[0, 20]"; open ends print as ∞. */
+export function rangeText(r: {
+  min?: number;
+  max?: number;
+  minInclusive?: boolean;
+  maxInclusive?: boolean;
+}): string {
+  const lo = r.min === undefined ? "(−∞" : `${r.minInclusive ? "[" : "("}${r.min}`;
+  const hi = r.max === undefined ? "∞)" : `${r.max}${r.maxInclusive ? "]" : ")"}`;
+  return `${lo}, ${hi}`;
+}

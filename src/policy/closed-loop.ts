@@ -1,0 +1,144 @@
+import type { Model } from "../models/model-spec.js";
+import { capQuota } from "./quota-cap.js";
+import type { Rule } from "./rule-spec.js";
+
+/**
+ * Where each quantity sits in the closed loop's state vector x[t]:
+ *
+ *   x[0]                         N[t]             abundance at the start of year t
+ *   x[1 .. nHistory]             N[t−1] … N[t−nHistory]
+ *   x[bStart .. bStart+T−1]      B[t−1] … B[t−T]  spawners (harvest before reproduction only)
+ *   x[quotaIndex]                Q[t−1]           last year's quota (quota caps only)
+ *
+ * nHistory = max(T, L) when the catch is taken after reproduction (the density term and the
+ * survey both read past abundances) and L when it is taken before (the density term reads
+ * past spawners B = N − C instead).
+ */
+export interface StateLayout {
+  readonly dimension: number;
+  readonly nHistory: number;
+  readonly bStart: number;
+  readonly bHistory: number;
+  /** −1 when the rule has no quota caps. */
+  readonly quotaIndex: number;
+}
+
+/** What happened in one year of the closed loop. */
+export interface StepRecord {
+  /** The survey the rule acted on, y[t−L]. */
+  survey: number;
+  /** The quota the rule set (after caps). */
+  quota: number;
+  /** The catch actually taken: min(quota, stock available at harvest time). */
+  catch: number;
+  /** The animals released, A. */
+  stocking: number;
+}
+
+/**
+ * The closed-loop map G = F − H + S: one year of growth, harvest and stocking.
+ *
+ * Harvest after reproduction (timing "after", the Schaefer convention):
+ *   P[t]   = N[t] · g(N[t−T])
+ *   C[t]   = min(Q[t], P[t])
+ *   N[t+1] = P[t] − C[t] + A
+ * Harvest before reproduction (timing "before", the Ricker convention):
+ *   C[t]   = min(Q[t], N[t]),   B[t] = N[t] − C[t]
+ *   N[t+1] = B[t] · g(B[t−T]) + A
+ * with Q[t] = H(y[t−L]) (capped against Q[t−1] when the rule has change limits) and the
+ * survey y[t] = N[t].
+ *
+ * Non-negativity: the catch never exceeds the stock available when it is taken (the min
+ * above), and a growth step that would be negative (the discrete and theta-logistic above
+ * N = K(1 + r)/r) is set to zero, which is extinction. Stocking is added at the end of the
+ * year. Sources: Schaefer (1954), Bull. Inter-Am. Trop. Tuna Comm. 1: 27–56; Ricker (1954),
+ * J. Fish. Res. Board Can. 11: 559–623.
+ */
+export interface ClosedLoop {
+  readonly model: Model;
+  readonly rule: Rule;
+  readonly layout: StateLayout;
+  /**
+   * Advances x[t] to x[t+1]. `out` may be the same array as `x` (updated in place).
+   * Fills `record` with the year's survey, quota, catch and stocking when given.
+   */
+  step(x: Float64Array, out: Float64Array, record?: StepRecord): void;
+  /**
+   * The state at the start of the first year from past abundances: `history[0]` = N[0],
+   * `history[k]` = N[−k]. Missing history repeats the oldest value given; past spawners are
+   * taken equal to past abundances (no catch before the start) and last year's quota is the
+   * rule's quota on the first survey.
+   */
+  initialState(history: readonly number[]): Float64Array;
+}
+
+/** Builds the layout of the state vector for a model and a rule. */
+export function stateLayout(model: Model, rule: Rule): StateLayout {
+  const T = model.delay;
+  const L = rule.surveyLag;
+  const nHistory = rule.timing === "after" ? Math.max(T, L) : L;
+  const bHistory = rule.timing === "after" ? 0 : T;
+  const bStart = 1 + nHistory;
+  const quotaIndex = rule.quotaChange ? bStart + bHistory : -1;
+  return { dimension: bStart + bHistory + (quotaIndex >= 0 ? 1 : 0), nHistory, bStart, bHistory, quotaIndex };
+}
+
+/** Builds the closed-loop map of a validated model and rule. */
+export function closedLoop(model: Model, rule: Rule): ClosedLoop {
+  const layout = stateLayout(model, rule);
+  const { nHistory, bStart, bHistory, quotaIndex } = layout;
+  const T = model.delay;
+  const L = rule.surveyLag;
+  const { growth, params } = model;
+  const { harvest, stocking } = rule;
+  const caps = rule.quotaChange;
+  const before = rule.timing === "before";
+
+  const step = (x: Float64Array, out: Float64Array, record?: StepRecord): void => {
+    const n = x[0]!;
+    const survey = L === 0 ? n : x[L]!;
+    let quota = harvest.quota(survey);
+    if (caps) quota = capQuota(quota, x[quotaIndex]!, caps.maxIncrease, caps.maxDecrease);
+    let taken: number;
+    let next: number;
+    let spawners = 0;
+    if (before) {
+      taken = quota < n ? quota : n;
+      spawners = n - taken;
+      const dens = T === 0 ? spawners : x[bStart + T - 1]!;
+      const p = spawners > 0 ? spawners * growth.factor(dens, params) : 0;
+      next = (p < 0 ? 0 : p) + stocking;
+    } else {
+      const dens = T === 0 ? n : x[T]!;
+      let p = n > 0 ? n * growth.factor(dens, params) : 0;
+      if (p < 0) p = 0;
+      taken = quota < p ? quota : p;
+      next = p - taken + stocking;
+    }
+    // Shift the delay lines from the far end so that out may alias x.
+    if (quotaIndex >= 0) out[quotaIndex] = quota;
+    for (let k = bHistory - 1; k >= 1; k--) out[bStart + k] = x[bStart + k - 1]!;
+    if (bHistory > 0) out[bStart] = spawners;
+    for (let k = nHistory; k >= 2; k--) out[k] = x[k - 1]!;
+    if (nHistory > 0) out[1] = n;
+    out[0] = next;
+    if (record) {
+      record.survey = survey;
+      record.quota = quota;
+      record.catch = taken;
+      record.stocking = stocking;
+    }
+  };
+
+  const initialState = (history: readonly number[]): Float64Array => {
+    const x = new Float64Array(layout.dimension);
+    const at = (k: number) => history[Math.min(k, history.length - 1)]!;
+    x[0] = at(0);
+    for (let k = 1; k <= nHistory; k++) x[k] = at(k);
+    for (let k = 0; k < bHistory; k++) x[bStart + k] = at(k + 1);
+    if (quotaIndex >= 0) x[quotaIndex] = harvest.quota(at(L));
+    return x;
+  };
+
+  return { model, rule, layout, step, initialState };
+}
