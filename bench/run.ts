@@ -1,6 +1,9 @@
 // Benchmarks: JSON lines on stdout, one per measurement. Each benchmark races its
 // numpy/scipy reference (bench/reference/*.py) in the same run when python3 has numpy.
+// `npm run bench -- jury` runs one benchmark by name.
 import { closedLoop, parseModel, parseRule } from "../src/index.js";
+import { juryBench } from "./jury.bench.js";
+import { regimeMapBench } from "./regime-map.bench.js";
 
 function must<T>(r: { ok: true; value: T } | { ok: false; issue: unknown }): T {
   if (!r.ok) throw new Error(JSON.stringify(r.issue));
@@ -21,4 +24,10 @@ function closedLoopSteps(): void {
   console.log(JSON.stringify({ bench: "closed-loop-steps", impl: "yieldloop", steps, seconds, stepsPerSecond: steps / seconds, final: x[0] }));
 }
 
-closedLoopSteps();
+const benches: Record<string, () => void | Promise<void>> = {
+  "closed-loop": closedLoopSteps,
+  jury: juryBench,
+  "regime-map": regimeMapBench,
+};
+const only = process.argv.slice(2);
+for (const [name, run] of Object.entries(benches)) if (only.length === 0 || only.includes(name)) await run();

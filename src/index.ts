@@ -37,3 +37,24 @@ export { project, projectLoop, UNBOUNDED_FACTOR, type Projection } from "./sim/p
 // Numerics
 export { lambertW0 } from "./numeric/lambert-w.js";
 export { maximiseOnInterval } from "./numeric/golden-section.js";
+
+// Equilibria and stability
+export { findEquilibria, type Equilibrium, type EquilibriumSet } from "./equilibria/equilibria.js";
+export { steadyState, equilibriumResidual } from "./equilibria/steady-state.js";
+export { linearise, characteristicPolynomial, type Linearisation } from "./equilibria/jacobian.js";
+export { juryTest, JURY_TOLERANCE, type JuryTable, type JuryCondition, type JuryVerdict } from "./equilibria/jury.js";
+export { juryVerdict, type JuryCode } from "./equilibria/jury-verdict.js";
+export { eigenvalues, companionMatrix, polynomialRoots, modulus, type Complex } from "./equilibria/eigenvalues.js";
+export { classifyEquilibrium, STABILITY_KINDS, type StabilityKind, type StabilityVerdict } from "./equilibria/classify.js";
+export { analyseStability, equilibriumStability, type StabilityAnalysis, type EquilibriumStability } from "./equilibria/stability.js";
+export { stabilityMargin, type StabilityMargin, type MarginSide } from "./equilibria/margin.js";
+export { parameterAxis, parameterPaths, withParameter, type ParameterAxis } from "./equilibria/parameter-path.js";
+export { longRun, longRunBatch, REGIMES, MAX_PERIOD, type LongRun, type Regime, type LongRunOptions } from "./equilibria/long-run.js";
+export { lyapunovExponent } from "./equilibria/lyapunov.js";
+export { bifurcationDiagram, axisValues, type BifurcationDiagram, type SweepAxis } from "./equilibria/bifurcation.js";
+export { regimeMap, type RegimeMap, type RegimeMapOptions } from "./equilibria/regime-map.js";
+export { operatingVerdict } from "./equilibria/operating-verdict.js";
+
+// Randomness
+export { seededUniform, type Uniform } from "./sim/rng.js";
+export { brentRoot } from "./numeric/brent-root.js";

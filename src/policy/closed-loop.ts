@@ -1,4 +1,6 @@
+import type { GrowthFamily, Params } from "../models/growth-family.js";
 import type { Model } from "../models/model-spec.js";
+import type { HarvestRule } from "./harvest-rule.js";
 import { capQuota } from "./quota-cap.js";
 import type { Rule } from "./rule-spec.js";
 
@@ -70,6 +72,12 @@ export interface ClosedLoop {
    * rule's quota on the first survey.
    */
   initialState(history: readonly number[]): Float64Array;
+  /**
+   * For a loop whose state is one number (no delay, no survey lag, no quota caps): the next
+   * year's abundance, the same arithmetic as step() without the state vector. Callers check
+   * layout.dimension === 1.
+   */
+  next(n: number): number;
 }
 
 /** Builds the layout of the state vector for a model and a rule. */
@@ -85,35 +93,64 @@ export function stateLayout(model: Model, rule: Rule): StateLayout {
 
 /** Builds the closed-loop map of a validated model and rule. */
 export function closedLoop(model: Model, rule: Rule): ClosedLoop {
-  const layout = stateLayout(model, rule);
-  const { nHistory, bStart, bHistory, quotaIndex } = layout;
-  const T = model.delay;
-  const L = rule.surveyLag;
-  const { growth, params } = model;
-  const { harvest, stocking } = rule;
-  const caps = rule.quotaChange;
-  const before = rule.timing === "before";
+  return new ClosedLoopMap(model, rule);
+}
 
-  const step = (x: Float64Array, out: Float64Array, record?: StepRecord): void => {
+// A class rather than a closure, so that every loop shares one hidden class and the callers'
+// loop.step(...) stays monomorphic (and inlined) in sweeps over thousands of loops.
+class ClosedLoopMap implements ClosedLoop {
+  readonly layout: StateLayout;
+  private readonly T: number;
+  private readonly L: number;
+  private readonly growth: GrowthFamily<Params>;
+  private readonly params: Params;
+  private readonly harvest: HarvestRule;
+  private readonly stocking: number;
+  private readonly before: boolean;
+  private readonly capped: boolean;
+  private readonly maxIncrease: number;
+  private readonly maxDecrease: number;
+
+  constructor(
+    readonly model: Model,
+    readonly rule: Rule,
+  ) {
+    this.layout = stateLayout(model, rule);
+    this.T = model.delay;
+    this.L = rule.surveyLag;
+    this.growth = model.growth;
+    this.params = model.params;
+    this.harvest = rule.harvest;
+    this.stocking = rule.stocking;
+    this.before = rule.timing === "before";
+    this.capped = rule.quotaChange !== undefined;
+    this.maxIncrease = rule.quotaChange?.maxIncrease ?? 0;
+    this.maxDecrease = rule.quotaChange?.maxDecrease ?? 0;
+  }
+
+  step(x: Float64Array, out: Float64Array, record?: StepRecord): void {
+    const { nHistory, bStart, bHistory, quotaIndex } = this.layout;
+    const T = this.T;
+    const L = this.L;
     const n = x[0]!;
     const survey = L === 0 ? n : x[L]!;
-    let quota = harvest.quota(survey);
-    if (caps) quota = capQuota(quota, x[quotaIndex]!, caps.maxIncrease, caps.maxDecrease);
+    let quota = this.harvest.quota(survey);
+    if (this.capped) quota = capQuota(quota, x[quotaIndex]!, this.maxIncrease, this.maxDecrease);
     let taken: number;
     let next: number;
     let spawners = 0;
-    if (before) {
+    if (this.before) {
       taken = quota < n ? quota : n;
       spawners = n - taken;
       const dens = T === 0 ? spawners : x[bStart + T - 1]!;
-      const p = spawners > 0 ? spawners * growth.factor(dens, params) : 0;
-      next = (p < 0 ? 0 : p) + stocking;
+      const p = spawners > 0 ? spawners * this.growth.factor(dens, this.params) : 0;
+      next = (p < 0 ? 0 : p) + this.stocking;
     } else {
       const dens = T === 0 ? n : x[T]!;
-      let p = n > 0 ? n * growth.factor(dens, params) : 0;
+      let p = n > 0 ? n * this.growth.factor(dens, this.params) : 0;
       if (p < 0) p = 0;
       taken = quota < p ? quota : p;
-      next = p - taken + stocking;
+      next = p - taken + this.stocking;
     }
     // Shift the delay lines from the far end so that out may alias x.
     if (quotaIndex >= 0) out[quotaIndex] = quota;
@@ -126,19 +163,30 @@ export function closedLoop(model: Model, rule: Rule): ClosedLoop {
       record.survey = survey;
       record.quota = quota;
       record.catch = taken;
-      record.stocking = stocking;
+      record.stocking = this.stocking;
     }
-  };
+  }
 
-  const initialState = (history: readonly number[]): Float64Array => {
-    const x = new Float64Array(layout.dimension);
+  next(n: number): number {
+    const quota = this.harvest.quota(n);
+    if (this.before) {
+      const spawners = n - (quota < n ? quota : n);
+      const p = spawners > 0 ? spawners * this.growth.factor(spawners, this.params) : 0;
+      return (p < 0 ? 0 : p) + this.stocking;
+    }
+    let p = n > 0 ? n * this.growth.factor(n, this.params) : 0;
+    if (p < 0) p = 0;
+    return p - (quota < p ? quota : p) + this.stocking;
+  }
+
+  initialState(history: readonly number[]): Float64Array {
+    const { dimension, nHistory, bStart, bHistory, quotaIndex } = this.layout;
+    const x = new Float64Array(dimension);
     const at = (k: number) => history[Math.min(k, history.length - 1)]!;
     x[0] = at(0);
     for (let k = 1; k <= nHistory; k++) x[k] = at(k);
     for (let k = 0; k < bHistory; k++) x[bStart + k] = at(k + 1);
-    if (quotaIndex >= 0) x[quotaIndex] = harvest.quota(at(L));
+    if (quotaIndex >= 0) x[quotaIndex] = this.harvest.quota(at(this.L));
     return x;
-  };
-
-  return { model, rule, layout, step, initialState };
+  }
 }

@@ -1,5 +1,16 @@
 import type { HarvestRule } from "./harvest-rule.js";
 
+class ConstantEscapement implements HarvestRule {
+  readonly kind = "constant-escapement" as const;
+  constructor(private readonly e: number) {}
+  quota(y: number): number {
+    return y > this.e ? y - this.e : 0;
+  }
+  quotaSlope(y: number): number {
+    return y > this.e ? 1 : 0;
+  }
+}
+
 /**
  * Constant-escapement rule: take everything above the escapement target E.
  *
@@ -9,9 +20,5 @@ import type { HarvestRule } from "./harvest-rule.js";
  * harvesting models. J. Environ. Econ. Manage. 6: 350–363 (from memory).
  */
 export function constantEscapement(escapement: number): HarvestRule {
-  return {
-    kind: "constant-escapement",
-    quota: (y) => Math.max(y - escapement, 0),
-    quotaSlope: (y) => (y > escapement ? 1 : 0),
-  };
+  return new ConstantEscapement(escapement);
 }

@@ -1,5 +1,16 @@
 import type { HarvestRule } from "./harvest-rule.js";
 
+class ConstantRate implements HarvestRule {
+  readonly kind = "constant-rate" as const;
+  constructor(private readonly h: number) {}
+  quota(y: number): number {
+    return this.h * y;
+  }
+  quotaSlope(): number {
+    return this.h;
+  }
+}
+
 /**
  * Constant harvest-rate (constant fishing mortality) rule.
  *
@@ -9,5 +20,5 @@ import type { HarvestRule } from "./harvest-rule.js";
  * proportional to effort and stock).
  */
 export function constantRate(rate: number): HarvestRule {
-  return { kind: "constant-rate", quota: (y) => rate * y, quotaSlope: () => rate };
+  return new ConstantRate(rate);
 }

@@ -90,7 +90,8 @@ export function parseRule(input: unknown, prefix = "rule"): Result<Rule> {
   return ok({ ...spec, harvest: buildHarvest(spec) });
 }
 
-function buildHarvest(spec: RuleSpec): HarvestRule {
+/** Builds the harvest rule of an already validated spec. */
+export function buildHarvest(spec: RuleSpec): HarvestRule {
   switch (spec.kind) {
     case "no-harvest":
       return noHarvest();

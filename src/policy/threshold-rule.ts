@@ -10,6 +10,24 @@ export interface ThresholdSettings {
   readonly maxRate: number;
 }
 
+class ThresholdRule implements HarvestRule {
+  readonly kind = "threshold" as const;
+  private readonly width: number;
+  constructor(
+    private readonly lo: number,
+    private readonly hi: number,
+    private readonly h: number,
+  ) {
+    this.width = hi - lo;
+  }
+  quota(y: number): number {
+    return y <= this.lo ? 0 : y >= this.hi ? this.h * y : ((this.h * (y - this.lo)) / this.width) * y;
+  }
+  quotaSlope(y: number): number {
+    return y < this.lo ? 0 : y >= this.hi ? this.h : (this.h * (2 * y - this.lo)) / this.width;
+  }
+}
+
 /**
  * Threshold harvest rule: closed below a lower trigger, a rate rising linearly to h_max at an
  * upper trigger, flat above.
@@ -22,11 +40,6 @@ export interface ThresholdSettings {
  * Source: the "40-10" style of rule in Restrepo, V. R. & Powers, J. E. (1999). Precautionary
  * control rules in US fisheries management. ICES J. Mar. Sci. 56: 846–852 (from memory).
  */
-export function thresholdRule({ lowerTrigger: lo, upperTrigger: hi, maxRate: h }: ThresholdSettings): HarvestRule {
-  const width = hi - lo;
-  return {
-    kind: "threshold",
-    quota: (y) => (y <= lo ? 0 : y >= hi ? h * y : ((h * (y - lo)) / width) * y),
-    quotaSlope: (y) => (y < lo ? 0 : y >= hi ? h : (h * (2 * y - lo)) / width),
-  };
+export function thresholdRule({ lowerTrigger, upperTrigger, maxRate }: ThresholdSettings): HarvestRule {
+  return new ThresholdRule(lowerTrigger, upperTrigger, maxRate);
 }

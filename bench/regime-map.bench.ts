@@ -1,0 +1,34 @@
+// Regime map 400 × 400 (r × harvest rate, Ricker, 1,000 burn-in + 128 classified years per
+// cell) with 1 and 2 workers, against bench/reference/regime_map_numpy.py on the same grid.
+import { createAnalysisPool } from "../server/workers/pool.js";
+import { havePythonNumpy, runReference } from "./python.js";
+
+const N = 400;
+const request = {
+  model: { family: "ricker", params: { r: 1, K: 1000 } },
+  rule: { kind: "constant-rate", rate: 0.1 },
+  x: { path: "model.params.r", from: 0.05, to: 4, count: N },
+  y: { path: "rule.rate", from: 0, to: 0.95, count: N },
+  options: { burnIn: 1000, observe: 128, start: [500] },
+};
+
+export async function regimeMapBench(): Promise<void> {
+  for (const threads of [1, 2]) {
+    const pool = createAnalysisPool(threads);
+    // One small warm-up map so thread start-up and compilation are not timed.
+    await pool.regimeMap({ ...request, x: { ...request.x, count: 40 }, y: { ...request.y, count: 40 } });
+    const t0 = process.hrtime.bigint();
+    const map = await pool.regimeMap(request);
+    const seconds = Number(process.hrtime.bigint() - t0) / 1e9;
+    await pool.close();
+    if (!map.ok) throw new Error(JSON.stringify(map.issue));
+    const counts: Record<string, number> = {};
+    for (const v of map.regimes) counts[map.regimeNames[v]!] = (counts[map.regimeNames[v]!] ?? 0) + 1;
+    console.log(JSON.stringify({ bench: "regime-map", impl: "yieldloop", workers: threads, cells: N * N, seconds, regimeCounts: counts, boundaryPoints: map.boundary.length }));
+  }
+  if (!havePythonNumpy()) {
+    console.log(JSON.stringify({ bench: "regime-map", impl: "numpy", skipped: "python3 with numpy not found" }));
+    return;
+  }
+  console.log(JSON.stringify(runReference("regime_map_numpy.py", [String(N), String(N), "1000", "128"])));
+}

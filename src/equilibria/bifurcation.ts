@@ -1,0 +1,113 @@
+import type { Model } from "../models/model-spec.js";
+import { closedLoop } from "../policy/closed-loop.js";
+import type { Rule } from "../policy/rule-spec.js";
+import { fail, ok, type Result } from "../result.js";
+import { longRun, type Regime } from "./long-run.js";
+import { operatingVerdict } from "./operating-verdict.js";
+import { parameterAxis, withParameter } from "./parameter-path.js";
+
+export interface SweepAxis {
+  /** Parameter path, e.g. `model.params.r` or `rule.rate`. */
+  readonly path: string;
+  readonly from: number;
+  readonly to: number;
+  /** Number of values, from and to included (2 … 2000). */
+  readonly count: number;
+}
+
+export interface BifurcationOptions {
+  readonly burnIn?: number;
+  readonly observe?: number;
+  /** Start abundance and history, as in a scenario (default K/2). */
+  readonly start?: readonly number[];
+}
+
+export interface BifurcationDiagram {
+  readonly parameter: string;
+  readonly values: number[];
+  /** The distinct long-run abundances at each value (one for an equilibrium, k for a k-cycle, up to `observe`). */
+  readonly points: number[][];
+  readonly regimes: Regime[];
+  readonly periods: (number | null)[];
+  /** N* of the largest positive equilibrium at each value (null: none, the stock collapses). */
+  readonly equilibrium: (number | null)[];
+  /** Jury verdict of that equilibrium: 1 stable, 0 marginal, −1 unstable, null none. */
+  readonly stability: (1 | 0 | -1 | null)[];
+  /** Values at which that verdict changes, located by bisection between neighbouring values. */
+  readonly boundaries: { value: number; from: 1 | 0 | -1 | null; to: 1 | 0 | -1 | null }[];
+}
+
+/** The `count` evenly spaced values of an axis, ends included. */
+export function axisValues(axis: SweepAxis): number[] {
+  const out: number[] = [];
+  for (let i = 0; i < axis.count; i++) out.push(axis.count === 1 ? axis.from : axis.from + ((axis.to - axis.from) * i) / (axis.count - 1));
+  return out;
+}
+
+/**
+ * Bifurcation diagram over one parameter: for each value the long-run abundances by
+ * iteration (longRun: burn-in, then the observed points, cycles and irregular orbits told
+ * apart), and the largest positive equilibrium with its Jury verdict, whose changes are
+ * returned as boundaries (located by 40 bisection steps) to draw over the points.
+ * Source: May, R. M. (1976). Nature 261: 459–467 (the diagram for the logistic map).
+ */
+export function bifurcationDiagram(model: Model, rule: Rule, axis: SweepAxis, options: BifurcationOptions = {}): Result<BifurcationDiagram> {
+  const ax = parameterAxis(model, rule, axis.path, "axis.path");
+  if (!ax.ok) return ax;
+  if (!Number.isInteger(axis.count) || axis.count < 2 || axis.count > 2000) {
+    return fail({ code: "param_out_of_range", field: "axis.count", value: axis.count, min: 2, max: 2000, minInclusive: true, maxInclusive: true });
+  }
+  const values = axisValues(axis);
+  for (const [field, v] of [["axis.from", axis.from], ["axis.to", axis.to]] as const) {
+    const check = withParameter(model, rule, ax.value, ax.value.integer ? Math.round(v) : v);
+    if (!check.ok) return fail({ ...check.issue, field } as typeof check.issue);
+  }
+  const K = model.params.K!;
+  const start = options.start ?? [K / 2];
+  const points: number[][] = [];
+  const regimes: Regime[] = [];
+  const periods: (number | null)[] = [];
+  const equilibrium: (number | null)[] = [];
+  const stability: (1 | 0 | -1 | null)[] = [];
+  const verdictAt = (v: number) => {
+    const varied = withParameter(model, rule, ax.value, ax.value.integer ? Math.round(v) : v);
+    if (!varied.ok) return { code: null, abundance: null } as const;
+    const res = operatingVerdict(closedLoop(varied.value.model, varied.value.rule));
+    return res.code === -2 ? ({ code: null, abundance: null } as const) : { code: res.code as 1 | 0 | -1, abundance: res.abundance };
+  };
+  for (const v of values) {
+    const varied = withParameter(model, rule, ax.value, ax.value.integer ? Math.round(v) : v);
+    if (!varied.ok) return varied;
+    const loop = closedLoop(varied.value.model, varied.value.rule);
+    const run = longRun(loop, loop.initialState(start), options);
+    const distinct = run.regime === "cycle" || run.regime === "equilibrium" || run.regime === "extinct" ? run.points : dedupe(run.points, 1e-9 * K);
+    points.push(distinct);
+    regimes.push(run.regime);
+    periods.push(run.period);
+    const vd = verdictAt(v);
+    equilibrium.push(vd.abundance);
+    stability.push(vd.code);
+  }
+  const boundaries: BifurcationDiagram["boundaries"] = [];
+  for (let i = 1; i < values.length; i++) {
+    if (stability[i] === stability[i - 1]) continue;
+    let a = values[i - 1]!;
+    let b = values[i]!;
+    if (!ax.value.integer) {
+      for (let k = 0; k < 40; k++) {
+        const mid = 0.5 * (a + b);
+        if (verdictAt(mid).code === stability[i - 1]) a = mid;
+        else b = mid;
+      }
+    }
+    boundaries.push({ value: ax.value.integer ? b : 0.5 * (a + b), from: stability[i - 1]!, to: stability[i]! });
+  }
+  return ok({ parameter: axis.path, values, points, regimes, periods, equilibrium, stability, boundaries });
+}
+
+function dedupe(values: readonly number[], tol: number): number[] {
+  const sorted = [...values].sort((p, q) => p - q);
+  const out: number[] = [];
+  for (const v of sorted) if (out.length === 0 || v - out[out.length - 1]! > tol) out.push(v);
+  return out;
+}
