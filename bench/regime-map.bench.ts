@@ -17,18 +17,23 @@ export async function regimeMapBench(): Promise<void> {
     const pool = createAnalysisPool(threads);
     // One small warm-up map so thread start-up and compilation are not timed.
     await pool.regimeMap({ ...request, x: { ...request.x, count: 40 }, y: { ...request.y, count: 40 } });
-    const t0 = process.hrtime.bigint();
-    const map = await pool.regimeMap(request);
-    const seconds = Number(process.hrtime.bigint() - t0) / 1e9;
+    // Best of three runs (the machine is shared); the numpy reference reports its best of three.
+    let seconds = Infinity;
+    let map = await pool.regimeMap(request);
+    for (let trial = 0; trial < 3; trial++) {
+      const t0 = process.hrtime.bigint();
+      map = await pool.regimeMap(request);
+      seconds = Math.min(seconds, Number(process.hrtime.bigint() - t0) / 1e9);
+    }
     await pool.close();
     if (!map.ok) throw new Error(JSON.stringify(map.issue));
     const counts: Record<string, number> = {};
     for (const v of map.regimes) counts[map.regimeNames[v]!] = (counts[map.regimeNames[v]!] ?? 0) + 1;
-    console.log(JSON.stringify({ bench: "regime-map", impl: "yieldloop", workers: threads, cells: N * N, seconds, regimeCounts: counts, boundaryPoints: map.boundary.length }));
+    console.log(JSON.stringify({ bench: "regime-map", impl: "yieldloop", workers: threads, cells: N * N, bestSeconds: seconds, trials: 3, regimeCounts: counts, boundaryPoints: map.boundary.length }));
   }
   if (!havePythonNumpy()) {
     console.log(JSON.stringify({ bench: "regime-map", impl: "numpy", skipped: "python3 with numpy not found" }));
     return;
   }
-  console.log(JSON.stringify(runReference("regime_map_numpy.py", [String(N), String(N), "1000", "128"])));
+  console.log(JSON.stringify(runReference("regime_map_numpy.py", [String(N), String(N), "1000", "128", "3"])));
 }

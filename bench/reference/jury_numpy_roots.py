@@ -14,9 +14,12 @@ import numpy as np
 def main():
     polys = json.load(open(sys.argv[1]))
     arrays = [np.array(p, dtype=float) for p in polys]
-    t0 = time.perf_counter()
-    verdicts = [1 if np.max(np.abs(np.roots(a))) < 1 else -1 for a in arrays]
-    seconds = time.perf_counter() - t0
+    # Best of three trials, as the yieldloop side reports its best trial.
+    seconds = float("inf")
+    for _ in range(3):
+        t0 = time.perf_counter()
+        verdicts = [1 if np.max(np.abs(np.roots(a))) < 1 else -1 for a in arrays]
+        seconds = min(seconds, time.perf_counter() - t0)
     print(json.dumps({"bench": "jury-verdicts", "impl": "numpy.roots", "numpy": np.__version__, "polynomials": len(polys),
                       "seconds": seconds, "verdictsPerSecond": len(polys) / seconds, "verdicts": verdicts}))
 

@@ -32,9 +32,12 @@ def jury(a):
 
 def main():
     polys = json.load(open(sys.argv[1]))
-    t0 = time.perf_counter()
-    verdicts = [jury(p) for p in polys]
-    seconds = time.perf_counter() - t0
+    # Best of five trials, as the yieldloop side reports its best trial.
+    seconds = float("inf")
+    for _ in range(5):
+        t0 = time.perf_counter()
+        verdicts = [jury(p) for p in polys]
+        seconds = min(seconds, time.perf_counter() - t0)
     print(json.dumps({"bench": "jury-verdicts", "impl": "plain-python-jury", "polynomials": len(polys),
                       "seconds": seconds, "verdictsPerSecond": len(polys) / seconds, "verdicts": verdicts}))
 

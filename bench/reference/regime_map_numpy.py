@@ -5,7 +5,8 @@ Ricker N' = N·exp(r(1 − N/K)) with a constant harvest rate h taken after repr
 classified years per cell, vectorised over all cells with in-place operations. Each cell is
 classified as yieldloop's longRun does: extinct, equilibrium, cycle of period k ≤ 64, else
 the largest Lyapunov exponent (two-trajectory method) decides irregular vs not.
-Prints one JSON line. Usage: python3 regime_map_numpy.py [nx ny burn observe]
+Prints one JSON line (the best of `trials` runs, default 3).
+Usage: python3 regime_map_numpy.py [nx ny burn observe [trials]]
 """
 import json
 import sys
@@ -16,6 +17,17 @@ import numpy as np
 
 def main():
     nx, ny, burn, observe = (int(a) for a in (sys.argv[1:5] if len(sys.argv) >= 5 else (400, 400, 1000, 128)))
+    trials = int(sys.argv[5]) if len(sys.argv) >= 6 else 3
+    best = None
+    for _ in range(trials):
+        result = run(nx, ny, burn, observe)
+        if best is None or result["seconds"] < best["seconds"]:
+            best = result
+    best["trials"] = trials
+    print(json.dumps(best))
+
+
+def run(nx, ny, burn, observe):
     K = 1000.0
     r = np.linspace(0.05, 4.0, nx)
     h = np.linspace(0.0, 0.95, ny)
@@ -79,8 +91,8 @@ def main():
         regime[undecided] = np.where(lyap > 0.005, 4, 5)
     seconds = time.perf_counter() - t0
     counts = {str(k): int((regime == k).sum()) for k in (0, 1, 2, 4, 5)}
-    print(json.dumps({"bench": "regime-map", "impl": "numpy", "numpy": np.__version__, "cells": int(n.size),
-                      "steps": int(n.size * (burn + observe)), "seconds": seconds, "regimeCounts": counts}))
+    return {"bench": "regime-map", "impl": "numpy", "numpy": np.__version__, "cells": int(n.size),
+            "steps": int(n.size * (burn + observe)), "seconds": seconds, "regimeCounts": counts}
 
 
 if __name__ == "__main__":

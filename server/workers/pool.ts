@@ -24,7 +24,7 @@ export function createAnalysisPool(threads: number): AnalysisPool {
     async regimeMap(req, signal, onProgress) {
       const nx = req.x.count;
       // Interleave column blocks so every worker gets a similar mix of easy and hard cells.
-      const blocks = Math.max(threads * 8, 1);
+      const blocks = Math.max(threads * 16, 1);
       const width = Math.max(1, Math.ceil(nx / blocks));
       const tasks: RegimeMapTask[] = [];
       for (let c = 0; c < nx; c += width) {

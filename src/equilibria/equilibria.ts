@@ -50,11 +50,19 @@ export function findEquilibria(loop: ClosedLoop, options: EquilibriumOptions = {
   let upper = 2 * K + 2 * A;
   for (let i = 0; i < 60 && phi(upper) > 0; i++) upper *= 2;
   const gridPoints = options.gridPoints ?? 2000;
-  const xs: number[] = [0];
-  for (let i = 0; i <= 60; i++) xs.push(K * Math.pow(10, -10 + (10 * i) / 60) * Math.min(1, upper / K));
-  for (let i = 1; i <= gridPoints; i++) xs.push((upper * i) / gridPoints);
-  xs.sort((a, b) => a - b);
-  const grid = xs.filter((v, i) => i === 0 || v > xs[i - 1]!);
+  // Merge the log grid (from 1e-10·K) and the even grid, both increasing, without sorting.
+  const grid: number[] = [0];
+  const logTop = Math.min(K, upper);
+  let li = 0;
+  let ei = 1;
+  while (li <= 60 || ei <= gridPoints) {
+    const lv = li <= 60 ? logTop * Math.pow(10, -10 + (10 * li) / 60) : Infinity;
+    const ev = ei <= gridPoints ? (upper * ei) / gridPoints : Infinity;
+    const v = lv < ev ? lv : ev;
+    if (lv < ev) li++;
+    else ei++;
+    if (v > grid[grid.length - 1]!) grid.push(v);
+  }
   const fs = grid.map(phi);
   const tol = 1e-9 * K;
   const roots: { n: number; double: boolean }[] = [];

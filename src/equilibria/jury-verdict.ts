@@ -3,7 +3,7 @@ import { juryTest } from "./jury.js";
 /** Verdict codes of the fast Jury test: 1 stable, 0 marginal, −1 unstable, −2 invalid input. */
 export type JuryCode = 1 | 0 | -1 | -2;
 
-/** Conditions closer to zero than this are re-decided by the double-double table. */
+/** Conditions closer to zero than this (relative) are re-decided by the double-double table. */
 const DOUBT = 1e-6;
 
 let scratch = new Float64Array(64);
@@ -11,11 +11,20 @@ let spare = new Float64Array(64);
 
 /**
  * The Jury stability verdict of P(z) = a0·z^n + … + an (highest power first), without
- * building a report: the same conditions as juryTest in plain double arithmetic with
- * power-of-two rescaling of each row (no allocation), for sweeps and regime maps.
+ * building a report: the conditions of juryTest in plain double arithmetic, for sweeps and
+ * regime maps.
  *
- * Any condition whose value falls within 1e-6 of zero is re-decided by juryTest's
- * double-double table, so the fast path never flips a verdict near the unit circle.
+ * ## Method
+ * The same table as juryTest (Jury 1964, in Ogata's arrangement). Each condition is a
+ * comparison d > 0 with a natural scale s (a0 − |an| against a0 + |an|; P(±1) against Σ|ai|;
+ * |R'[0]| − |R'[m−1]| against their sum), evaluated without division:
+ *   d < −1e-6·s      clearly fails: the polynomial is unstable, stop;
+ *   |d| < 1e-6·s     doubtful: the whole question goes to juryTest's double-double table,
+ *                    which decides stable, unstable or marginal with its tolerance;
+ *   otherwise        clearly holds.
+ * A row whose entries drift below 1e-100 or above 1e100 is rescaled by an exact power of two,
+ * so high degrees neither underflow nor overflow. The fast path therefore never decides a
+ * case near the unit circle itself.
  * Source: Jury, E. I. (1964). Theory and Application of the z-Transform Method. Wiley.
  * @example juryVerdict([1, -1.2, 0.07, 0.3, -0.08]) // => 1 (Ogata 1995, Example 4-3)
  */
@@ -30,40 +39,36 @@ export function juryVerdict(c: ArrayLike<number>, tolerance = 1e-9): JuryCode {
     scratch = new Float64Array(2 * (n + 1));
     spare = new Float64Array(2 * (n + 1));
   }
-  const sign = c[start]! < 0 ? -1 : 1;
-  // Row 1 is [a_n … a_0]; also P(1), P(−1) and Σ|a| on the way.
-  let p1 = 0;
-  let pm1 = 0;
+  const flip = c[start]! < 0;
+  // Row 1 is [a_n … a_0]; the sums of even- and odd-power coefficients give P(1) and P(−1).
+  let even = 0;
+  let odd = 0;
   let abs = 0;
-  let alt = n % 2 === 0 ? 1 : -1;
-  for (let i = 0; i <= n; i++) {
-    const v = sign * c[start + i]!;
-    scratch[n - i] = v;
-    p1 += v;
-    pm1 += alt * v;
-    alt = -alt;
+  let row = scratch;
+  for (let k = 0; k <= n; k++) {
+    const raw = c[len - 1 - k]!; // coefficient of z^k
+    const v = flip ? -raw : raw;
+    row[k] = v;
+    if ((k & 1) === 0) even += v;
+    else odd += v;
     abs += v < 0 ? -v : v;
   }
-  if (!Number.isFinite(abs)) return -2;
-  const a0 = scratch[n]!;
-  const an = scratch[0]!;
-  // Each condition's value v: fails if v < −tol, marginal if |v| ≤ tol, doubtful if |v| < DOUBT.
-  const anAbs = an < 0 ? -an : an;
-  let v = (a0 - anAbs) / (a0 > anAbs ? a0 : anAbs);
-  if (v < -DOUBT) return -1;
-  let worst = v;
-  let closest = v < 0 ? -v : v;
-  v = p1 / abs;
-  if (v < -DOUBT) return -1;
-  if (v < worst) worst = v;
-  if ((v < 0 ? -v : v) < closest) closest = v < 0 ? -v : v;
-  v = ((n % 2 === 0 ? 1 : -1) * pm1) / abs;
-  if (v < -DOUBT) return -1;
-  if (v < worst) worst = v;
-  if ((v < 0 ? -v : v) < closest) closest = v < 0 ? -v : v;
-  let row = scratch;
+  if (!(abs < Infinity)) return -2;
+  const p1 = even + odd;
+  const pm1 = (n & 1) === 0 ? even - odd : odd - even; // (−1)^n·P(−1)
+  const a0 = row[n]!;
+  const an = row[0]! < 0 ? -row[0]! : row[0]!;
+  let doubt = false;
+  // |a_n| < a_0
+  let d = a0 - an;
+  let s = a0 + an;
+  if (d < -DOUBT * s) return -1;
+  if (d < DOUBT * s) doubt = true;
+  // P(1) > 0 and (−1)^n·P(−1) > 0
+  if (p1 < -DOUBT * abs || pm1 < -DOUBT * abs) return -1;
+  if (p1 < DOUBT * abs || pm1 < DOUBT * abs) doubt = true;
   let next = spare;
-  for (let m = n; m >= 3; m--) {
+  for (let m = n; m >= 3 && !doubt; m--) {
     const r0 = row[0]!;
     const rm = row[m]!;
     for (let i = 0; i < m; i++) next[i] = r0 * row[i]! - row[m - i]! * rm;
@@ -74,28 +79,22 @@ export function juryVerdict(c: ArrayLike<number>, tolerance = 1e-9): JuryCode {
     let last = row[m - 1]!;
     if (first < 0) first = -first;
     if (last < 0) last = -last;
+    d = first - last;
+    s = first + last;
+    if (d < -DOUBT * s) return -1;
+    if (!(d > DOUBT * s)) doubt = true;
     // Rescale by an exact power of two only when the row drifts towards under- or overflow.
-    const big = first > last ? first : last;
-    if (big > 0 && (big < 1e-100 || big > 1e100)) {
-      const sc = Math.pow(2, -(Math.floor(Math.log2(big)) + 1));
+    if (s < 1e-100 || s > 1e100) {
+      if (s === 0) {
+        doubt = true;
+        break;
+      }
+      const sc = Math.pow(2, -Math.floor(Math.log2(s)));
       for (let i = 0; i < m; i++) row[i]! *= sc;
     }
-    // Scale-free row condition (|first| − |last|)/(|first| + |last|).
-    v = big > 0 ? (first - last) / (first + last) : 0;
-    // A clear failure needs no further rows: the polynomial is unstable.
-    if (v < -DOUBT) return -1;
-    if (v < worst) worst = v;
-    const av = v < 0 ? -v : v;
-    if (av < closest) closest = av;
   }
-  const doubt = closest < DOUBT;
-  const marginal = closest <= tolerance;
-  const fails = worst < -tolerance;
-  if (doubt) {
-    const exact = juryTest(Array.from(c as ArrayLike<number>), tolerance);
-    if (!exact.ok) return -2;
-    return exact.value.verdict === "stable" ? 1 : exact.value.verdict === "marginal" ? 0 : -1;
-  }
-  if (fails) return -1;
-  return marginal ? 0 : 1;
+  if (!doubt) return 1;
+  const exact = juryTest(Array.from(c as ArrayLike<number>), tolerance);
+  if (!exact.ok) return -2;
+  return exact.value.verdict === "stable" ? 1 : exact.value.verdict === "marginal" ? 0 : -1;
 }

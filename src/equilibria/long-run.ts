@@ -12,6 +12,8 @@ export interface LongRunOptions {
   readonly observe?: number;
   /** Relative tolerance for "the same value again" (default 1e-7 of max(K, the orbit's level)). */
   readonly tolerance?: number;
+  /** Keep the observed points in the result (default true; maps turn it off). */
+  readonly points?: boolean;
 }
 
 export interface LongRun {
@@ -81,42 +83,16 @@ export function longRunBatch(loops: readonly ClosedLoop[], start: Float64Array, 
     else out[c] = longRun(loops[c]!, start, options);
   }
   const k = scalar.length;
-  const n = new Float64Array(k).fill(start[0]!);
-  const tortoise = new Float64Array(k).fill(start[0]!);
-  const power = new Float64Array(k).fill(1);
-  const lam = new Float64Array(k);
-  const done = new Int32Array(k).fill(-1); // step at which the period was found
+  const n = new Float64Array(k);
+  const done = new Int32Array(k); // steps taken when the burn-in stopped (period found or complete)
   const period = new Int32Array(k);
   const bad = new Uint8Array(k);
   const bounds = new Float64Array(k);
   for (let i = 0; i < k; i++) bounds[i] = 1e6 * loops[scalar[i]!]!.model.params.K!;
-  let active = Array.from({ length: k }, (_, i) => i);
-  for (let t = 0; t < burnIn && active.length > 0; t++) {
-    let w = 0;
-    for (let a = 0; a < active.length; a++) {
-      const i = active[a]!;
-      if (lam[i] === power[i]) {
-        tortoise[i] = n[i]!;
-        power[i]! *= 2;
-        lam[i] = 0;
-      }
-      const v = loops[scalar[i]!]!.next(n[i]!);
-      n[i] = v;
-      lam[i]! += 1;
-      if (!(v <= bounds[i]!)) {
-        bad[i] = 1;
-        continue;
-      }
-      if (v === tortoise[i] && lam[i]! <= MAX_PERIOD) {
-        period[i] = lam[i]!;
-        done[i] = t + 1;
-        continue;
-      }
-      active[w++] = i;
-    }
-    active.length = w;
-  }
-  const x = new Float64Array(1);
+  burnInLanes(loops, scalar, start[0]!, burnIn, bounds, n, period, done, bad);
+  const after = new Float64Array(1);
+  const obs = new Float64Array(observe);
+  const keep = options.points ?? true;
   for (let i = 0; i < k; i++) {
     const c = scalar[i]!;
     if (bad[i]) {
@@ -127,22 +103,160 @@ export function longRunBatch(loops: readonly ClosedLoop[], start: Float64Array, 
     let v = n[i]!;
     const p = period[i]!;
     if (p > 0) for (let s = (burnIn - done[i]!) % p; s > 0; s--) v = loop.next(v);
-    const obs = new Float64Array(observe);
-    x[0] = v;
+    after[0] = v;
+    let inside = true;
     for (let j = 0; j < observe; j++) {
       if (p > 0 && j >= p) obs[j] = obs[j - p]!;
       else {
         obs[j] = v;
         v = loop.next(v);
       }
+      if (!(obs[j]! <= bounds[i]!)) inside = false;
     }
-    if (!(obs.every((o) => o <= bounds[i]!))) {
-      out[c] = UNBOUNDED;
-      continue;
-    }
-    out[c] = classifyOrbit(loop, obs, Float64Array.of(x[0]!), tol);
+    out[c] = inside ? classifyOrbit(loop, obs, after, tol, keep) : UNBOUNDED;
   }
   return out;
+}
+
+/**
+ * The burn-in of many one-number loops, 3 at a time in interleaved lanes so that their
+ * independent exp() evaluations overlap in the processor. Per cell it is exactly
+ * scalarOrbit's burn-in (Brent's cycle check included); results go to n, period, done, bad.
+ */
+function burnInLanes(
+  loops: readonly ClosedLoop[],
+  cells: readonly number[],
+  x0: number,
+  burnIn: number,
+  bounds: Float64Array,
+  n: Float64Array,
+  period: Int32Array,
+  done: Int32Array,
+  bad: Uint8Array,
+): void {
+  const k = cells.length;
+  let next = 0;
+  let n0 = 0, t0 = 0, p0 = 1, m0 = 0, c0 = -1;
+  let n1 = 0, t1 = 0, p1 = 1, m1 = 0, c1 = -1;
+  let n2 = 0, t2 = 0, p2 = 1, m2 = 0, c2 = -1;
+  let s0 = 0;
+  let lp0: ClosedLoop = loops[0]!;
+  let b0 = 0;
+  let s1 = 0;
+  let lp1: ClosedLoop = loops[0]!;
+  let b1 = 0;
+  let s2 = 0;
+  let lp2: ClosedLoop = loops[0]!;
+  let b2 = 0;
+  if (burnIn === 0) {
+    for (let i = 0; i < k; i++) {
+      n[i] = x0;
+      done[i] = 0;
+    }
+    return;
+  }
+  for (;;) {
+    if (c0 < 0 && next < k) {
+      c0 = next++;
+      n0 = x0;
+      t0 = x0;
+      p0 = 1;
+      m0 = 0;
+      s0 = 0;
+      lp0 = loops[cells[c0]!]!;
+      b0 = bounds[c0]!;
+    }
+    if (c1 < 0 && next < k) {
+      c1 = next++;
+      n1 = x0;
+      t1 = x0;
+      p1 = 1;
+      m1 = 0;
+      s1 = 0;
+      lp1 = loops[cells[c1]!]!;
+      b1 = bounds[c1]!;
+    }
+    if (c2 < 0 && next < k) {
+      c2 = next++;
+      n2 = x0;
+      t2 = x0;
+      p2 = 1;
+      m2 = 0;
+      s2 = 0;
+      lp2 = loops[cells[c2]!]!;
+      b2 = bounds[c2]!;
+    }
+    if (c0 < 0 && c1 < 0 && c2 < 0) return;
+    if (c0 >= 0) {
+      if (m0 === p0) {
+        t0 = n0;
+        p0 *= 2;
+        m0 = 0;
+      }
+      n0 = lp0.next(n0);
+      m0++;
+      s0++;
+      if (!(n0 <= b0)) {
+        bad[c0] = 1;
+        c0 = -1;
+      } else if (n0 === t0 && m0 <= MAX_PERIOD) {
+        period[c0] = m0;
+        done[c0] = s0;
+        n[c0] = n0;
+        c0 = -1;
+      } else if (s0 === burnIn) {
+        done[c0] = burnIn;
+        n[c0] = n0;
+        c0 = -1;
+      }
+    }
+    if (c1 >= 0) {
+      if (m1 === p1) {
+        t1 = n1;
+        p1 *= 2;
+        m1 = 0;
+      }
+      n1 = lp1.next(n1);
+      m1++;
+      s1++;
+      if (!(n1 <= b1)) {
+        bad[c1] = 1;
+        c1 = -1;
+      } else if (n1 === t1 && m1 <= MAX_PERIOD) {
+        period[c1] = m1;
+        done[c1] = s1;
+        n[c1] = n1;
+        c1 = -1;
+      } else if (s1 === burnIn) {
+        done[c1] = burnIn;
+        n[c1] = n1;
+        c1 = -1;
+      }
+    }
+    if (c2 >= 0) {
+      if (m2 === p2) {
+        t2 = n2;
+        p2 *= 2;
+        m2 = 0;
+      }
+      n2 = lp2.next(n2);
+      m2++;
+      s2++;
+      if (!(n2 <= b2)) {
+        bad[c2] = 1;
+        c2 = -1;
+      } else if (n2 === t2 && m2 <= MAX_PERIOD) {
+        period[c2] = m2;
+        done[c2] = s2;
+        n[c2] = n2;
+        c2 = -1;
+      } else if (s2 === burnIn) {
+        done[c2] = burnIn;
+        n[c2] = n2;
+        c2 = -1;
+      }
+    }
+  }
 }
 
 const UNBOUNDED: LongRun = { regime: "unbounded", period: null, lyapunov: null, towards: null, points: [], min: 0, max: 0, mean: 0 };
@@ -186,7 +300,7 @@ function vectorOrbit(loop: ClosedLoop, x: Float64Array, burnIn: number, obs: Flo
  * Classifies an observed window of abundances (steps 2–3 of longRun's method). `after` is the
  * state at the start of the window (it is advanced if a Lyapunov exponent is needed).
  */
-function classifyOrbit(loop: ClosedLoop, obs: Float64Array, after: Float64Array, tol: number): LongRun {
+function classifyOrbit(loop: ClosedLoop, obs: Float64Array, after: Float64Array, tol: number, keepPoints = true): LongRun {
   const observe = obs.length;
   const K = loop.model.params.K!;
   let min = Infinity;
@@ -199,8 +313,17 @@ function classifyOrbit(loop: ClosedLoop, obs: Float64Array, after: Float64Array,
     sum += n;
   }
   const mean = sum / observe;
-  const base = { min, max, mean };
-  if (max <= 1e-9 * K) return { regime: "extinct", period: null, lyapunov: null, towards: null, points: [obs[observe - 1]!], ...base };
+  const result = (regime: Regime, period: number | null, lyapunov: number | null, towards: LongRun["towards"], points: number[]): LongRun => ({
+    regime,
+    period,
+    lyapunov,
+    towards,
+    points,
+    min,
+    max,
+    mean,
+  });
+  if (max <= 1e-9 * K) return result("extinct", null, null, null, keepPoints ? [obs[observe - 1]!] : []);
   const eq = tol * Math.max(K, max);
   const maxPeriod = Math.min(MAX_PERIOD, Math.floor(observe / 2));
   for (let k = 1; k <= maxPeriod; k++) {
@@ -212,15 +335,13 @@ function classifyOrbit(loop: ClosedLoop, obs: Float64Array, after: Float64Array,
       }
     }
     if (repeats) {
-      const points = Array.from(obs.subarray(observe - k));
-      return k === 1
-        ? { regime: "equilibrium", period: null, lyapunov: null, towards: null, points: [obs[observe - 1]!], ...base }
-        : { regime: "cycle", period: k, lyapunov: null, towards: null, points, ...base };
+      const points = keepPoints ? Array.from(obs.subarray(observe - k)) : [];
+      return k === 1 ? result("equilibrium", null, null, null, keepPoints ? [obs[observe - 1]!] : []) : result("cycle", k, null, null, points);
     }
   }
   const lyapunov = lyapunovExponent(loop, after, observe, Math.max(K, max));
-  const points = Array.from(obs);
-  if (lyapunov > 0.005) return { regime: "irregular", period: null, lyapunov, towards: null, points, ...base };
+  const points = keepPoints ? Array.from(obs) : [];
+  if (lyapunov > 0.005) return result("irregular", null, lyapunov, null, points);
   let rising = true;
   let falling = true;
   for (let t = 1; t < observe; t++) {
@@ -235,7 +356,7 @@ function classifyOrbit(loop: ClosedLoop, obs: Float64Array, after: Float64Array,
     // A decline that speeds up is leaving an unstable level (an Allee threshold) downwards.
     const speeding = Math.abs(obs[observe - 1]! - obs[observe - 2]!) > Math.abs(obs[1]! - obs[0]!);
     const towards = falling && (speeding || limit < 0.01 * Math.max(K, max)) ? "extinction" : "equilibrium";
-    return { regime: "transient", period: null, lyapunov, towards, points, ...base };
+    return result("transient", null, lyapunov, towards, points);
   }
   // Not monotone and not chaotic: a slowly damped swing or an undamped quasi-periodic one.
   // Look again 8 windows later: a damped swing will have shrunk.
@@ -246,8 +367,8 @@ function classifyOrbit(loop: ClosedLoop, obs: Float64Array, after: Float64Array,
     late[t] = after[0]!;
     loop.step(after, after);
   }
-  if (spread(late) < 0.8 * early) return { regime: "transient", period: null, lyapunov, towards: "equilibrium", points, ...base };
-  return { regime: "quasi-periodic", period: null, lyapunov, towards: null, points, ...base };
+  if (spread(late) < 0.8 * early) return result("transient", null, lyapunov, "equilibrium", points);
+  return result("quasi-periodic", null, lyapunov, null, points);
 
   function spread(v: Float64Array): number {
     let lo = Infinity;

@@ -1,7 +1,7 @@
 import type { Model } from "../models/model-spec.js";
 import { MAX_DELAY } from "../models/model-spec.js";
 import type { ParamInfo } from "../params.js";
-import { buildHarvest, MAX_SURVEY_LAG, RULE_SETTINGS, type Rule, type RuleSpec } from "../policy/rule-spec.js";
+import { buildHarvest, MAX_SURVEY_LAG, RULE_SETTINGS, type Rule } from "../policy/rule-spec.js";
 import { fail, ok, type Result } from "../result.js";
 
 /** A parameter that margins, diagrams and maps can vary, with its allowed range. */
@@ -63,10 +63,10 @@ export function withParameter(model: Model, rule: Rule, axis: ParameterAxis, val
     for (const c of model.growth.constraints) if (!c.holds(params)) return fail({ code: "constraint_violated", field: `model.${c.field}`, constraint: c.text });
     return ok({ model: { ...model, params }, rule });
   }
-  const spec = { ...rule, [field.slice("rule.".length)]: value } as RuleSpec & Record<string, unknown>;
+  const spec = { ...rule, [field.slice("rule.".length)]: value } as Rule & Record<string, unknown>;
   if (spec.kind === "threshold" && !(spec.lowerTrigger < spec.upperTrigger)) {
     return fail({ code: "constraint_violated", field: "rule.upperTrigger", constraint: "the upper trigger must be above the lower trigger" });
   }
-  const { harvest: _old, ...plain } = spec as RuleSpec & { harvest?: unknown };
-  return ok({ model, rule: { ...(plain as RuleSpec), harvest: buildHarvest(plain as RuleSpec) } });
+  (spec as { harvest: Rule["harvest"] }).harvest = buildHarvest(spec);
+  return ok({ model, rule: spec });
 }

@@ -88,8 +88,8 @@ export function regimeMap(model: Model, rule: Rule, xAxis: SweepAxis, yAxis: Swe
     }
     const starts = loops.length > 0 ? loops[0]!.initialState(start) : new Float64Array(1);
     const runs = loops.every((l) => l.layout.dimension === 1)
-      ? longRunBatch(loops, starts, options)
-      : loops.map((l) => longRun(l, l.initialState(start), options));
+      ? longRunBatch(loops, starts, { ...options, points: false })
+      : loops.map((l) => longRun(l, l.initialState(start), { ...options, points: false }));
     for (let r = 0; r < rows.length; r++) {
       const j = rows[r]!;
       regimes[j * nx + i] = REGIMES.indexOf(runs[r]!.regime);

@@ -169,14 +169,11 @@ class ClosedLoopMap implements ClosedLoop {
 
   next(n: number): number {
     const quota = this.harvest.quota(n);
-    if (this.before) {
-      const spawners = n - (quota < n ? quota : n);
-      const p = spawners > 0 ? spawners * this.growth.factor(spawners, this.params) : 0;
-      return (p < 0 ? 0 : p) + this.stocking;
-    }
-    let p = n > 0 ? n * this.growth.factor(n, this.params) : 0;
+    // One growth call for both timings: before, the spawners N − C reproduce; after, N does.
+    const base = this.before ? n - (quota < n ? quota : n) : n;
+    let p = base > 0 ? base * this.growth.factor(base, this.params) : 0;
     if (p < 0) p = 0;
-    return p - (quota < p ? quota : p) + this.stocking;
+    return (this.before ? p : p - (quota < p ? quota : p)) + this.stocking;
   }
 
   initialState(history: readonly number[]): Float64Array {

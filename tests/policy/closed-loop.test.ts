@@ -2,6 +2,7 @@ import { describe, expect, it } from "vitest";
 import { closedLoop, stateLayout, type StepRecord } from "../../src/policy/closed-loop.js";
 import { capQuota } from "../../src/policy/quota-cap.js";
 import { projectLoop } from "../../src/sim/project.js";
+import { families } from "../../src/models/families.js";
 import { expectClose, model, rule } from "../helpers.js";
 
 // Semantics of the closed loop, checked against values worked by hand from the equations in
@@ -102,5 +103,24 @@ describe("closed loop G = F − H + S", () => {
     expect(none.abundance.at(-1)!).toBeLessThan(1e-6);
     const stocked = projectLoop(closedLoop(allee, rule({ kind: "no-harvest", stocking: 80 })), [150], 200);
     expect(stocked.abundance.at(-1)!).toBeGreaterThan(900);
+  });
+});
+
+describe("the one-number shortcut next()", () => {
+  it("gives bit for bit the same next abundance as step() for every family and timing", () => {
+    for (const [id, fam] of Object.entries(families)) {
+      const params: Record<string, number> = {};
+      for (const p of fam.params) params[p.name] = p.typical;
+      for (const timing of ["before", "after"] as const) {
+        for (const spec of [{ kind: "constant-rate", rate: 0.3 }, { kind: "constant-catch", quota: 150 }, { kind: "threshold", lowerTrigger: 100, upperTrigger: 700, maxRate: 0.4 }] as const) {
+          const loop = closedLoop(model(id, params), rule({ ...spec, timing, stocking: 3 }));
+          for (const n of [0, 1e-3, 50, 420, 999, 2500]) {
+            const x = loop.initialState([n]);
+            loop.step(x, x);
+            expect(loop.next(n), `${id} ${timing} ${spec.kind} at ${n}`).toBe(x[0]);
+          }
+        }
+      }
+    }
   });
 });
