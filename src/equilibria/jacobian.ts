@@ -55,28 +55,20 @@ export function linearise(loop: ClosedLoop, x: ArrayLike<number>): Linearisation
       quota = capped;
     }
   }
-  const e = (j: number) => {
-    const v = new Array<number>(d).fill(0);
-    v[j] = 1;
-    return v;
-  };
-  const add = (a: number[], b: number[], s = 1) => a.map((v, i) => v + s * b[i]!);
-  const scale = (a: number[], s: number) => a.map((v) => v * s);
-
   let row0: number[];
   let dB: number[] | null = null;
   if (loop.rule.timing === "before") {
     const takeAll = quota > 0 && quota >= n;
-    const dC = takeAll ? e(0) : dQ;
+    const dC = takeAll ? unit(d, 0) : dQ;
     const b = n - Math.min(quota, n);
-    dB = add(e(0), dC, -1);
+    dB = add(unit(d, 0), dC, -1);
     const densIndex = T === 0 ? -1 : bStart + T - 1;
     const m = T === 0 ? b : x[densIndex]!;
     const g = growth.factor(m, params);
     const p = b > 0 ? b * g : 0;
     if (p < 0) row0 = new Array<number>(d).fill(0);
     else {
-      const dM = T === 0 ? dB : e(densIndex);
+      const dM = T === 0 ? dB : unit(d, densIndex);
       row0 = add(scale(dB, g), dM, densityTerm(b, growth.factorSlope(m, params)));
     }
   } else {
@@ -84,7 +76,7 @@ export function linearise(loop: ClosedLoop, x: ArrayLike<number>): Linearisation
     const m = x[densIndex]!;
     const g = growth.factor(m, params);
     const raw = n > 0 ? n * g : 0;
-    const dP = raw < 0 ? new Array<number>(d).fill(0) : add(scale(e(0), g), e(densIndex), densityTerm(n, growth.factorSlope(m, params)));
+    const dP = raw < 0 ? new Array<number>(d).fill(0) : add(scale(unit(d, 0), g), unit(d, densIndex), densityTerm(n, growth.factorSlope(m, params)));
     const p = raw < 0 ? 0 : raw;
     const takeAll = quota > 0 && quota >= p;
     row0 = takeAll ? new Array<number>(d).fill(0) : add(dP, dQ, -1);
@@ -105,6 +97,20 @@ export function linearise(loop: ClosedLoop, x: ArrayLike<number>): Linearisation
  * past δN it stands for: N-history slot k is δN[t−k]; spawner slot k is δB[t−1−k] with
  * δB = dB · (δN lags); the quota slot is δQ[t−1] = H'(y)·δN[t−1−L].
  */
+function unit(d: number, j: number): number[] {
+  const v = new Array<number>(d).fill(0);
+  v[j] = 1;
+  return v;
+}
+
+function add(a: readonly number[], b: readonly number[], s = 1): number[] {
+  return a.map((v, i) => v + s * b[i]!);
+}
+
+function scale(a: readonly number[], s: number): number[] {
+  return a.map((v) => v * s);
+}
+
 function lagForm(loop: ClosedLoop, row0: number[], dB: number[] | null, dQ: number[]): number[] {
   const { nHistory, bStart, bHistory, quotaIndex, dimension } = loop.layout;
   const L = loop.rule.surveyLag;

@@ -136,9 +136,9 @@ function burnInLanes(
 ): void {
   const k = cells.length;
   let next = 0;
-  let n0 = 0, t0 = 0, p0 = 1, m0 = 0, c0 = -1;
-  let n1 = 0, t1 = 0, p1 = 1, m1 = 0, c1 = -1;
-  let n2 = 0, t2 = 0, p2 = 1, m2 = 0, c2 = -1;
+  let n0 = 0, t0 = 0, p0 = 1, m0 = 0, c0 = -1, q0 = 0, r0 = 0;
+  let n1 = 0, t1 = 0, p1 = 1, m1 = 0, c1 = -1, q1 = 0, r1 = 0;
+  let n2 = 0, t2 = 0, p2 = 1, m2 = 0, c2 = -1, q2 = 0, r2 = 0;
   let s0 = 0;
   let lp0: ClosedLoop = loops[0]!;
   let b0 = 0;
@@ -160,6 +160,8 @@ function burnInLanes(
       c0 = next++;
       n0 = x0;
       t0 = x0;
+      q0 = NaN;
+      r0 = NaN;
       p0 = 1;
       m0 = 0;
       s0 = 0;
@@ -170,6 +172,8 @@ function burnInLanes(
       c1 = next++;
       n1 = x0;
       t1 = x0;
+      q1 = NaN;
+      r1 = NaN;
       p1 = 1;
       m1 = 0;
       s1 = 0;
@@ -180,6 +184,8 @@ function burnInLanes(
       c2 = next++;
       n2 = x0;
       t2 = x0;
+      q2 = NaN;
+      r2 = NaN;
       p2 = 1;
       m2 = 0;
       s2 = 0;
@@ -193,11 +199,20 @@ function burnInLanes(
         p0 *= 2;
         m0 = 0;
       }
+      r0 = q0;
+      q0 = n0;
       n0 = lp0.next(n0);
       m0++;
       s0++;
       if (!(n0 <= b0)) {
         bad[c0] = 1;
+        c0 = -1;
+      } else if (n0 === q0 || n0 === r0) {
+        // A fixed point or a 2-cycle, caught the step it closes (Brent's check alone can
+        // take up to twice as long to notice it).
+        period[c0] = n0 === q0 ? 1 : 2;
+        done[c0] = s0;
+        n[c0] = n0;
         c0 = -1;
       } else if (n0 === t0 && m0 <= MAX_PERIOD) {
         period[c0] = m0;
@@ -216,11 +231,20 @@ function burnInLanes(
         p1 *= 2;
         m1 = 0;
       }
+      r1 = q1;
+      q1 = n1;
       n1 = lp1.next(n1);
       m1++;
       s1++;
       if (!(n1 <= b1)) {
         bad[c1] = 1;
+        c1 = -1;
+      } else if (n1 === q1 || n1 === r1) {
+        // A fixed point or a 2-cycle, caught the step it closes (Brent's check alone can
+        // take up to twice as long to notice it).
+        period[c1] = n1 === q1 ? 1 : 2;
+        done[c1] = s1;
+        n[c1] = n1;
         c1 = -1;
       } else if (n1 === t1 && m1 <= MAX_PERIOD) {
         period[c1] = m1;
@@ -239,11 +263,20 @@ function burnInLanes(
         p2 *= 2;
         m2 = 0;
       }
+      r2 = q2;
+      q2 = n2;
       n2 = lp2.next(n2);
       m2++;
       s2++;
       if (!(n2 <= b2)) {
         bad[c2] = 1;
+        c2 = -1;
+      } else if (n2 === q2 || n2 === r2) {
+        // A fixed point or a 2-cycle, caught the step it closes (Brent's check alone can
+        // take up to twice as long to notice it).
+        period[c2] = n2 === q2 ? 1 : 2;
+        done[c2] = s2;
+        n[c2] = n2;
         c2 = -1;
       } else if (n2 === t2 && m2 <= MAX_PERIOD) {
         period[c2] = m2;
@@ -313,17 +346,7 @@ function classifyOrbit(loop: ClosedLoop, obs: Float64Array, after: Float64Array,
     sum += n;
   }
   const mean = sum / observe;
-  const result = (regime: Regime, period: number | null, lyapunov: number | null, towards: LongRun["towards"], points: number[]): LongRun => ({
-    regime,
-    period,
-    lyapunov,
-    towards,
-    points,
-    min,
-    max,
-    mean,
-  });
-  if (max <= 1e-9 * K) return result("extinct", null, null, null, keepPoints ? [obs[observe - 1]!] : []);
+  if (max <= 1e-9 * K) return orbitResult("extinct", null, null, null, keepPoints ? [obs[observe - 1]!] : [], min, max, mean);
   const eq = tol * Math.max(K, max);
   const maxPeriod = Math.min(MAX_PERIOD, Math.floor(observe / 2));
   for (let k = 1; k <= maxPeriod; k++) {
@@ -336,12 +359,12 @@ function classifyOrbit(loop: ClosedLoop, obs: Float64Array, after: Float64Array,
     }
     if (repeats) {
       const points = keepPoints ? Array.from(obs.subarray(observe - k)) : [];
-      return k === 1 ? result("equilibrium", null, null, null, keepPoints ? [obs[observe - 1]!] : []) : result("cycle", k, null, null, points);
+      return k === 1 ? orbitResult("equilibrium", null, null, null, keepPoints ? [obs[observe - 1]!] : [], min, max, mean) : orbitResult("cycle", k, null, null, points, min, max, mean);
     }
   }
   const lyapunov = lyapunovExponent(loop, after, observe, Math.max(K, max));
   const points = keepPoints ? Array.from(obs) : [];
-  if (lyapunov > 0.005) return result("irregular", null, lyapunov, null, points);
+  if (lyapunov > 0.005) return orbitResult("irregular", null, lyapunov, null, points, min, max, mean);
   let rising = true;
   let falling = true;
   for (let t = 1; t < observe; t++) {
@@ -356,29 +379,44 @@ function classifyOrbit(loop: ClosedLoop, obs: Float64Array, after: Float64Array,
     // A decline that speeds up is leaving an unstable level (an Allee threshold) downwards.
     const speeding = Math.abs(obs[observe - 1]! - obs[observe - 2]!) > Math.abs(obs[1]! - obs[0]!);
     const towards = falling && (speeding || limit < 0.01 * Math.max(K, max)) ? "extinction" : "equilibrium";
-    return result("transient", null, lyapunov, towards, points);
+    return orbitResult("transient", null, lyapunov, towards, points, min, max, mean);
   }
   // Not monotone and not chaotic: a slowly damped swing or an undamped quasi-periodic one.
   // Look again 8 windows later: a damped swing will have shrunk.
   const early = spread(obs);
   const late = new Float64Array(observe);
-  for (let t = 0; t < 7 * observe; t++) loop.step(after, after);
+  const scalar = loop.layout.dimension === 1;
+  let v = after[0]!;
+  for (let t = 0; t < 7 * observe; t++) {
+    if (scalar) v = loop.next(v);
+    else loop.step(after, after);
+  }
   for (let t = 0; t < observe; t++) {
-    late[t] = after[0]!;
-    loop.step(after, after);
-  }
-  if (spread(late) < 0.8 * early) return result("transient", null, lyapunov, "equilibrium", points);
-  return result("quasi-periodic", null, lyapunov, null, points);
-
-  function spread(v: Float64Array): number {
-    let lo = Infinity;
-    let hi = -Infinity;
-    for (const a of v) {
-      if (a < lo) lo = a;
-      if (a > hi) hi = a;
+    if (scalar) {
+      late[t] = v;
+      v = loop.next(v);
+    } else {
+      late[t] = after[0]!;
+      loop.step(after, after);
     }
-    return hi - lo;
   }
+  if (spread(late) < 0.8 * early) return orbitResult("transient", null, lyapunov, "equilibrium", points, min, max, mean);
+  return orbitResult("quasi-periodic", null, lyapunov, null, points, min, max, mean);
+
+}
+
+function spread(v: Float64Array): number {
+  let lo = Infinity;
+  let hi = -Infinity;
+  for (const a of v) {
+    if (a < lo) lo = a;
+    if (a > hi) hi = a;
+  }
+  return hi - lo;
+}
+
+function orbitResult(regime: Regime, period: number | null, lyapunov: number | null, towards: LongRun["towards"], points: number[], min: number, max: number, mean: number): LongRun {
+  return { regime, period, lyapunov, towards, points, min, max, mean };
 }
 
 function sameState(a: Float64Array, b: Float64Array): boolean {
@@ -398,15 +436,24 @@ function scalarOrbit(loop: ClosedLoop, x: Float64Array, burnIn: number, obs: Flo
   let lam = 0;
   let period = 0;
   let t = 0;
+  let prev = Number.NaN;
+  let prev2 = Number.NaN;
   for (; t < burnIn; t++) {
     if (lam === power) {
       tortoise = n;
       power *= 2;
       lam = 0;
     }
+    prev2 = prev;
+    prev = n;
     n = loop.next(n);
     lam++;
     if (!(n <= bound)) return null;
+    if (n === prev || n === prev2) {
+      period = n === prev ? 1 : 2;
+      t++;
+      break;
+    }
     if (n === tortoise && lam <= MAX_PERIOD) {
       period = lam;
       t++;

@@ -22,6 +22,7 @@ import type { ClosedLoop } from "../policy/closed-loop.js";
 export function lyapunovExponent(loop: ClosedLoop, x: Float64Array, steps: number, scale: number): number {
   const d = x.length;
   const eps = 1e-8 * scale;
+  if (d === 1 && loop.layout.dimension === 1) return scalarLyapunov(loop, x, steps, eps);
   const y = Float64Array.from(x);
   y[0]! += eps;
   let sum = 0;
@@ -44,5 +45,27 @@ export function lyapunovExponent(loop: ClosedLoop, x: Float64Array, steps: numbe
     const s = eps / dist;
     for (let i = 0; i < d; i++) y[i] = x[i]! + (y[i]! - x[i]!) * s;
   }
+  return sum / steps;
+}
+
+/** The same algorithm for a one-number state through loop.next() (identical arithmetic). */
+function scalarLyapunov(loop: ClosedLoop, x: Float64Array, steps: number, eps: number): number {
+  let a = x[0]!;
+  let b = a + eps;
+  let sum = 0;
+  for (let t = 0; t < steps; t++) {
+    a = loop.next(a);
+    b = loop.next(b);
+    const diff = b - a;
+    const dist = Math.sqrt(diff * diff);
+    if (!(dist > 0) || !Number.isFinite(dist)) {
+      sum += Math.log(1e-16);
+      b = a + eps;
+      continue;
+    }
+    sum += Math.log(dist / eps);
+    b = a + (b - a) * (eps / dist);
+  }
+  x[0] = a;
   return sum / steps;
 }

@@ -12,7 +12,7 @@ export interface RegimeMapOptions extends LongRunOptions {
   readonly start?: readonly number[];
   /** Compute only columns [from, to) of the x axis (for splitting across workers). */
   readonly columns?: readonly [number, number];
-  /** Rows between Jury checks before bisection (default 4). */
+  /** Rows between Jury checks before bisection (default 8). */
   readonly boundaryStride?: number;
 }
 
@@ -31,7 +31,7 @@ export interface RegimeMap {
 /**
  * Regime map over two parameters: every cell's long-run regime by iteration (longRun) and,
  * column by column, the Jury stability boundary of the largest positive equilibrium so it
- * can be drawn over the cells. The verdict is checked every `boundaryStride` rows and each
+ * can be drawn over the cells. The verdict is checked every `boundaryStride` rows (default 8) and each
  * change is located by 30 bisection steps in y (to about 1e-9 of the y range).
  * Sources: May, R. M. (1976). Nature 261: 459–467; Jury, E. I. (1964). Theory and
  * Application of the z-Transform Method. Wiley.
@@ -61,7 +61,7 @@ export function regimeMap(model: Model, rule: Rule, xAxis: SweepAxis, yAxis: Swe
   const regimes = new Uint8Array(nx * ys.length);
   const periods = new Uint8Array(nx * ys.length);
   const boundary: RegimeMap["boundary"] = [];
-  const stride = Math.max(1, options.boundaryStride ?? 4);
+  const stride = Math.max(1, options.boundaryStride ?? 8);
   for (let i = c0; i < c1; i++) {
     const xv = xs[i]!;
     const column = withParameter(model, rule, ax.value, ax.value.integer ? Math.round(xv) : xv);
