@@ -24,6 +24,13 @@ export type Issue =
   | { code: "unknown_field"; field: string }
   | { code: "constraint_violated"; field: string; constraint: string }
   | { code: "no_finite_msy"; field: string; value: number; family: string }
+  | { code: "csv_malformed"; row: number; detail: string }
+  | { code: "csv_missing_column"; column: string; allowed: readonly string[] }
+  | { code: "csv_cell"; row: number; column: string; value: string; expected: string }
+  | { code: "csv_duplicate_year"; row: number; column: string; year: number; firstRow: number }
+  | { code: "csv_no_observations"; column: string }
+  | { code: "csv_implausible_catch"; row: number; column: string; value: number; limit: number }
+  | { code: "csv_too_large"; rows: number; maximum: number }
   | { code: "series_too_short"; minimum: number; actual: number }
   | { code: "fit_not_converged"; iterations: number };
 
@@ -56,6 +63,20 @@ export function describeIssue(issue: Issue): string {
       return `${issue.field}: ${issue.constraint}`;
     case "no_finite_msy":
       return `the ${issue.family} model has no finite MSY at ${issue.field} = ${issue.value} (production grows without bound at low stock)`;
+    case "csv_malformed":
+      return `row ${issue.row}: the CSV is malformed (${issue.detail})`;
+    case "csv_missing_column":
+      return `the CSV needs a "${issue.column}" column (one of: ${issue.allowed.join(", ")})`;
+    case "csv_cell":
+      return `row ${issue.row}, column "${issue.column}": "${issue.value}" is not ${issue.expected}`;
+    case "csv_duplicate_year":
+      return `row ${issue.row}, column "${issue.column}": year ${issue.year} already appears in row ${issue.firstRow}`;
+    case "csv_no_observations":
+      return `column "${issue.column}" has no observed values`;
+    case "csv_implausible_catch":
+      return `row ${issue.row}, column "${issue.column}": a catch of ${issue.value} is larger than any plausible stock (more than ${issue.limit}, 100 times the largest count)`;
+    case "csv_too_large":
+      return `the CSV has ${issue.rows} rows; at most ${issue.maximum} are accepted`;
     case "series_too_short":
       return `the series has ${issue.actual} usable points; at least ${issue.minimum} are needed`;
     case "fit_not_converged":

@@ -9,10 +9,15 @@
  * optimal order) and EPS^(1/4) ≈ 1.2e-4 for the Hessian.
  * Source: Nocedal, J. & Wright, S. J. (2006). Numerical Optimization, 2nd ed. Springer, §8.1.
  */
-export function gradient(f: (x: readonly number[]) => number, x: readonly number[], step = 6e-6): number[] {
+export function gradient(f: (x: readonly number[]) => number, x: readonly number[], step = 6e-6, curvature?: readonly (readonly number[])[]): number[] {
   const g: number[] = [];
+  const f0 = curvature ? Math.abs(f(x)) + 1 : 0;
   for (let i = 0; i < x.length; i++) {
-    const h = step * (x[i] !== 0 ? Math.abs(x[i]!) : 1);
+    let h = step * (x[i] !== 0 ? Math.abs(x[i]!) : 1);
+    // With a known curvature c, a step of (3e-16·|f|/c)^(1/3)·… balances rounding against
+    // truncation; here h = (1e-10·|f|/c)^(1/2) caps the change of f along the step.
+    const c = curvature ? Math.abs(curvature[i]![i]!) : 0;
+    if (c > 0 && Number.isFinite(c)) h = Math.min(h, Math.max(Math.sqrt((1e-10 * f0) / c), 1e-4 * h));
     const p = Array.from(x);
     const m = Array.from(x);
     p[i]! += h;
@@ -23,8 +28,22 @@ export function gradient(f: (x: readonly number[]) => number, x: readonly number
 }
 
 export function hessian(f: (x: readonly number[]) => number, x: readonly number[], step = 1.2e-4): number[][] {
+  const base = x.map((v) => step * (v !== 0 ? Math.abs(v) : 1));
+  const first = hessianWithSteps(f, x, base);
+  // Second pass with steps scaled to each direction's curvature, so that f changes by about
+  // 1e-7·(|f| + 1) per step: a large curvature with a fixed step would let the truncation error
+  // of the difference formulas swamp the cross terms of strongly correlated parameters.
+  const f0 = Math.abs(f(x)) + 1;
+  const tuned = base.map((h, i) => {
+    const c = Math.abs(first[i]![i]!);
+    if (!(c > 0) || !Number.isFinite(c)) return h;
+    return Math.min(h, Math.max(Math.sqrt((1e-7 * f0) / c), 1e-3 * h));
+  });
+  return hessianWithSteps(f, x, tuned);
+}
+
+function hessianWithSteps(f: (x: readonly number[]) => number, x: readonly number[], hs: readonly number[]): number[][] {
   const n = x.length;
-  const hs = x.map((v) => step * (v !== 0 ? Math.abs(v) : 1));
   const at = (di: number, si: number, dj: number, sj: number) => {
     const p = Array.from(x);
     p[di]! += si * hs[di]!;

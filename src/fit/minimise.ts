@@ -37,8 +37,9 @@ export function minimise(
   for (let k = 0; k < extra; k++) starts.push(start.map((v) => v + spread * (2 * options.random!() - 1) * Math.max(1, Math.abs(v))));
   let iterations = 0;
   const results = starts.map((s) => {
-    const a = nelderMead(f, s, { maxIter: options.maxIter });
-    const b = nelderMead(f, a.x, { maxIter: options.maxIter });
+    // Loose simplex tolerances: the Newton polish supplies the last digits.
+    const a = nelderMead(f, s, { maxIter: options.maxIter, tol: 1e-9, xtol: 1e-6 });
+    const b = nelderMead(f, a.x, { maxIter: options.maxIter, tol: 1e-9, xtol: 1e-6 });
     iterations += a.iterations + b.iterations;
     return b;
   });

@@ -44,8 +44,8 @@ export function newtonPolish(f: (x: readonly number[]) => number, start: readonl
   let it = 0;
   let converged = false;
   for (; it < maxIter; it++) {
-    const g = gradient(f, x);
     const H = hessian(f, x);
+    const g = gradient(f, x, undefined, H);
     let improved = false;
     while (lambda <= 1e8) {
       const A = H.map((row, i) => row.map((v, j) => (i === j ? v + lambda * (Math.abs(v) + 1) : v)));
@@ -71,8 +71,8 @@ export function newtonPolish(f: (x: readonly number[]) => number, start: readonl
     }
     if (converged) break;
   }
-  const g = gradient(f, x);
   const H = hessian(f, x);
+  const g = gradient(f, x, undefined, H);
   const d = solveLinear(H, g);
   // Newton decrement gᵀH⁻¹g/2: the decrease a full Newton step still predicts.
   const decrement = d ? Math.abs(g.reduce((s, v, i) => s + v * d[i]!, 0)) / 2 : Infinity;

@@ -15,3 +15,14 @@ export function seededUniform(seed: number): Uniform {
   const g = xoroshiro128plus(seed | 0);
   return () => uniformFloat64(g);
 }
+
+/**
+ * A standard normal deviate from two uniforms (Box–Muller transform):
+ *   z = √(−2 ln u₁)·cos(2π u₂).
+ * Source: Box, G. E. P. & Muller, M. E. (1958). Ann. Math. Stat. 29: 610–611.
+ */
+export function standardNormal(u: Uniform): number {
+  let u1 = u();
+  while (u1 <= 0) u1 = u();
+  return Math.sqrt(-2 * Math.log(u1)) * Math.cos(2 * Math.PI * u());
+}

@@ -1,0 +1,221 @@
+import { families } from "../models/families.js";
+import { FAMILY_IDS, type FamilyId, type Params } from "../models/growth-family.js";
+import { MAX_DELAY, type Model } from "../models/model-spec.js";
+import type { Timing } from "../policy/rule-spec.js";
+import { fail, ok, type Result } from "../result.js";
+import { seededUniform } from "../sim/rng.js";
+import { projectThroughCatches } from "../sim/catch-driven.js";
+import { cvWeights, negLogLikelihood, type LikelihoodKind } from "./likelihood.js";
+import { minimise, type Optimum } from "./minimise.js";
+import { transformFor, type Transform } from "./parameter-transform.js";
+import type { Series } from "./series.js";
+
+export const FIT_METHODS = ["observation", "process"] as const;
+export type FitMethod = (typeof FIT_METHODS)[number];
+
+export interface FitOptions {
+  readonly family: FamilyId;
+  readonly delay?: number;
+  /** "observation" (default): project from an estimated N0 through the catches; "process": one-step-ahead. */
+  readonly method?: FitMethod;
+  /** Default lognormal (indices); poisson or negative-binomial for raw counts with zeros. */
+  readonly likelihood?: LikelihoodKind;
+  readonly timing?: Timing;
+  /** Seed of the random extra starts (default 1). */
+  readonly seed?: number;
+  /** Random extra starts of the multi-start search (default 8). */
+  readonly extraStarts?: number;
+}
+
+/** The fitted objective: a function of the free vector, and how to read it back. */
+export interface FitProblem {
+  readonly options: Required<Omit<FitOptions, "seed" | "extraStarts">>;
+  /** Names of the free parameters, natural scale: family params, then N0, then q and k (negative binomial). */
+  readonly names: string[];
+  readonly transforms: Transform[];
+  /** Negative log-likelihood (+ catch-shortfall penalty) of a free vector. */
+  objective(free: readonly number[]): number;
+  /** Natural-scale values of a free vector. */
+  natural(free: readonly number[]): number[];
+  /** Index predictions (q·N, or the one-step prediction) and observations for a natural vector. */
+  evaluate(values: readonly number[]): { predicted: (number | null)[]; q: number; sigma: number | null; nll: number; shortfall: number } | null;
+  /** Number of observations used and estimated parameters (including concentrated q and σ). */
+  readonly observations: number;
+  readonly estimated: number;
+  readonly start: number[];
+}
+
+const PENALTY = 1e4;
+
+/**
+ * Builds the likelihood of a growth model for a series.
+ *
+ * Observation error (Polacheck, Hilborn & Punt 1993, Can. J. Fish. Aquat. Sci. 50: 2597–2607):
+ *   N[t] from projectThroughCatches(N0, recorded catches and releases); y[t] ~ L(q·N[t]).
+ * Process error: ŷ[t+1] = G(y[t]) through that year's catch (q = 1: counts are abundance),
+ *   using the pairs where both years (and y[t−T] for a delay) were observed.
+ * q is estimated in closed form (likelihood.ts) when the series records catches or releases,
+ * which give N an absolute scale; without them only q·K is identifiable, so q = 1 and the
+ * counts are taken as abundance. A recorded catch the modelled stock could not supply adds
+ * 1e4·(shortfall/Σcatch)² to the objective (common practice, no source).
+ * Start values come from the Ricker regression ln(y[t+1]/y[t]) = r − (r/K)·y[t]
+ * (Ricker 1954; Hilborn & Walters 1992, Quantitative Fisheries Stock Assessment, ch. 7).
+ */
+export function fitProblem(series: Series, options: FitOptions): Result<FitProblem> {
+  if (!(FAMILY_IDS as readonly string[]).includes(options.family)) {
+    return fail({ code: "unknown_family", field: "family", value: String(options.family), allowed: FAMILY_IDS });
+  }
+  const delay = options.delay ?? 0;
+  if (!Number.isInteger(delay) || delay < 0 || delay > MAX_DELAY) {
+    return fail({ code: "param_out_of_range", field: "delay", value: delay, min: 0, max: MAX_DELAY, minInclusive: true, maxInclusive: true });
+  }
+  const opts = {
+    family: options.family,
+    delay,
+    method: options.method ?? "observation",
+    likelihood: options.likelihood ?? "lognormal",
+    timing: options.timing ?? "after",
+  } as const;
+  const growth = families[opts.family];
+  const absolute = series.catch.some((c) => c > 0) || series.stocking.some((a) => a > 0);
+  const y = series.count;
+  const weightsAll = cvWeights(opts.likelihood, series.cv);
+  const observed = y.map((v, i) => (v === null ? -1 : i)).filter((i) => i >= 0);
+  if (opts.likelihood === "lognormal" && observed.some((i) => !(y[i]! > 0))) {
+    const i = observed.find((k) => !(y[k]! > 0))!;
+    return fail({ code: "constraint_violated", field: `count[${series.years[i]}]`, constraint: "a lognormal likelihood needs positive counts; use poisson or negative-binomial for zeros" });
+  }
+  const maxY = Math.max(...observed.map((i) => y[i]!));
+  const start = rickerStart(series);
+  const familyNames = growth.params.map((p) => p.name);
+  const transforms: Transform[] = growth.params.map((p) => (p.name === "A" ? transformFor({ min: 0, max: 1 }) : transformFor(p)));
+  const names = [...familyNames];
+  if (opts.method === "observation") {
+    names.push("N0");
+    transforms.push(transformFor({ min: 0, max: 1e12 }));
+  }
+  const nb = opts.likelihood === "negative-binomial";
+  if (nb) {
+    if (absolute) {
+      names.push("q");
+      transforms.push(transformFor({ min: 0, max: 1e12 }));
+    }
+    names.push("k");
+    transforms.push(transformFor({ min: 0, max: 1e12 }));
+  }
+  const scaleK = absolute ? maxY * 2 : maxY * 1.5;
+  const natural0: number[] = growth.params.map((p) => {
+    if (p.name === "K") return Math.max(scaleK, start.K);
+    if (p.name === "r") return Math.min(Math.max(start.r, p.min + 0.05), Math.min(p.max * 0.9, 2.5));
+    if (p.name === "R0") return Math.min(Math.max(Math.exp(start.r), 1.2), 50);
+    if (p.name === "A") return 0.1; // as a fraction of K
+    return p.typical;
+  });
+  if (opts.method === "observation") natural0.push(y[observed[0]!]!);
+  if (nb) {
+    if (absolute) natural0.push(1);
+    natural0.push(10);
+  }
+  const startFree = natural0.map((v, i) => transforms[i]!.toFree(v));
+
+  // Observation pairs for the process-error form.
+  const pairs: number[] = [];
+  for (let t = delay; t + 1 < y.length; t++) if (y[t] !== null && y[t + 1] !== null && (delay === 0 || y[t - delay] !== null)) pairs.push(t);
+  const used = opts.method === "observation" ? observed : pairs.map((t) => t + 1);
+  const weights = used.map((i) => weightsAll[i]!);
+  const obs = used.map((i) => y[i]!);
+  const totalCatch = series.catch.reduce((a, b) => a + b, 0) + 1e-12;
+
+  const modelOf = (v: readonly number[]): Model => {
+    const params: Record<string, number> = {};
+    familyNames.forEach((n, i) => (params[n] = v[i]!));
+    if ("A" in params) params.A = params.A! * params.K!;
+    return { family: opts.family, params: params as Params, delay, growth };
+  };
+  const evaluate = (v: readonly number[]) => {
+    const model = modelOf(v);
+    let predicted: (number | null)[];
+    let shortfall = 0;
+    if (opts.method === "observation") {
+      const run = projectThroughCatches(model, opts.timing, v[familyNames.length]!, series.catch, series.stocking);
+      if (!run) return null;
+      predicted = run.abundance;
+      shortfall = run.shortfall;
+    } else {
+      predicted = y.map(() => null);
+      for (const t of pairs) {
+        // One year of the closed loop from the observed stock, its density term T years back.
+        const n = y[t]!;
+        const c = series.catch[t]!;
+        let next: number;
+        if (opts.timing === "before") {
+          const b = n - Math.min(c, n);
+          shortfall += c - Math.min(c, n);
+          const dens = delay === 0 ? b : Math.max(y[t - delay]! - series.catch[t - delay]!, 0);
+          const p = b > 0 ? b * growth.factor(dens, model.params) : 0;
+          next = Math.max(p, 0) + series.stocking[t]!;
+        } else {
+          const dens = delay === 0 ? n : y[t - delay]!;
+          const p = Math.max(n > 0 ? n * growth.factor(dens, model.params) : 0, 0);
+          shortfall += c - Math.min(c, p);
+          next = p - Math.min(c, p) + series.stocking[t]!;
+        }
+        if (!Number.isFinite(next)) return null;
+        predicted[t + 1] = next;
+      }
+    }
+    const n = used.map((i) => predicted[i]!);
+    const qIndex = familyNames.length + (opts.method === "observation" ? 1 : 0);
+    const fixedQ = absolute && opts.method === "observation" ? undefined : 1;
+    const lik = nb
+      ? negLogLikelihood("negative-binomial", obs, n, weights, { q: absolute && opts.method === "observation" ? v[qIndex]! : 1, size: v[v.length - 1]! })
+      : negLogLikelihood(opts.likelihood, obs, n, weights, fixedQ === undefined ? {} : { fixedQ });
+    const scaled = predicted.map((p) => (p === null ? null : lik.q * p));
+    return { predicted: scaled, q: lik.q, sigma: lik.sigma, nll: lik.nll, shortfall };
+  };
+  const natural = (free: readonly number[]) => free.map((x, i) => transforms[i]!.fromFree(x));
+  const objective = (free: readonly number[]) => {
+    const e = evaluate(natural(free));
+    if (!e || !Number.isFinite(e.nll)) return Infinity;
+    const s = e.shortfall / totalCatch;
+    return e.nll + PENALTY * s * s;
+  };
+  const concentrated = nb ? 0 : opts.likelihood === "poisson" ? (absolute && opts.method === "observation" ? 1 : 0) : 1 + (absolute && opts.method === "observation" ? 1 : 0);
+  const estimated = names.length + concentrated;
+  if (used.length < estimated + 2) return fail({ code: "series_too_short", minimum: estimated + 2, actual: used.length });
+  return ok({ options: opts, names, transforms, objective, natural, evaluate, observations: used.length, estimated, start: startFree });
+}
+
+/** Start values from the Ricker regression ln(y[t+1]/y[t]) = r − (r/K)·y[t] (least squares). */
+function rickerStart(series: Series): { r: number; K: number } {
+  const xs: number[] = [];
+  const zs: number[] = [];
+  for (let t = 0; t + 1 < series.count.length; t++) {
+    const a = series.count[t];
+    const b = series.count[t + 1];
+    if (a !== null && b !== null && a! > 0 && b! > 0) {
+      const escaped = Math.max(a! - series.catch[t]!, a! * 0.05);
+      xs.push(a!);
+      zs.push(Math.log(b! / escaped));
+    }
+  }
+  const max = Math.max(...series.count.map((v) => v ?? 0));
+  if (xs.length < 3) return { r: 0.5, K: 1.5 * max };
+  const mx = xs.reduce((p, q) => p + q, 0) / xs.length;
+  const mz = zs.reduce((p, q) => p + q, 0) / zs.length;
+  let sxz = 0;
+  let sxx = 0;
+  for (let i = 0; i < xs.length; i++) {
+    sxz += (xs[i]! - mx) * (zs[i]! - mz);
+    sxx += (xs[i]! - mx) ** 2;
+  }
+  const slope = sxx > 0 ? sxz / sxx : 0;
+  const r = mz - slope * mx;
+  if (!(slope < 0) || !(r > 0)) return { r: 0.5, K: 1.5 * max };
+  return { r, K: -r / slope };
+}
+
+/** Runs the multi-start minimisation of a fit problem (seeded). */
+export function optimiseFit(problem: FitProblem, seed = 1, extraStarts = 8, start = problem.start): Optimum {
+  return minimise(problem.objective, start, { random: extraStarts > 0 ? seededUniform(seed) : undefined, extraStarts, spread: 1.5 });
+}

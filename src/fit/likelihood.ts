@@ -1,0 +1,121 @@
+import { logGamma } from "../numeric/log-gamma.js";
+
+/** The observation models a series can be fitted with. */
+export const LIKELIHOODS = ["lognormal", "normal", "poisson", "negative-binomial"] as const;
+export type LikelihoodKind = (typeof LIKELIHOODS)[number];
+
+/**
+ * Negative log-likelihood of observations y_t given predictions μ_t = q·N_t, with the scale
+ * q and the variance handled as their maximum-likelihood (closed-form, "concentrated")
+ * values where those exist.
+ *
+ *   lognormal: ln y ~ N(ln μ, σ²/w);  ln q̂ = Σw(ln y − ln N)/Σw,  σ̂² = Σw·e²/n,  e = ln y − ln μ
+ *   normal:    y ~ N(μ, σ²/w);        q̂ = Σw·y·N / Σw·N²,         σ̂² = Σw·e²/n,  e = y − μ
+ *   poisson:   y ~ Poisson(μ);        q̂ = Σy / ΣN
+ *   negative binomial: y ~ NB(mean μ, size k), q and k supplied (estimated numerically)
+ * Weights w_t = 1/ln(1 + cv_t²) (lognormal) or 1/cv_t² (normal) where a cv is given, else 1,
+ * normalised to mean 1. With `fixedQ` the scale is not estimated.
+ * Sources: Hilborn, R. & Mangel, M. (1997). The Ecological Detective. Princeton University
+ * Press, ch. 7; Polacheck, T., Hilborn, R. & Punt, A. E. (1993). Fitting surplus production
+ * models. Can. J. Fish. Aquat. Sci. 50: 2597–2607 (from memory).
+ * Returns Infinity where a prediction is not positive and the likelihood needs it.
+ */
+export function negLogLikelihood(
+  kind: LikelihoodKind,
+  y: readonly number[],
+  n: readonly number[],
+  w: readonly number[],
+  options: { fixedQ?: number; q?: number; size?: number } = {},
+): { nll: number; q: number; sigma: number | null } {
+  const m = y.length;
+  if (kind === "lognormal") {
+    let q = options.fixedQ;
+    if (q === undefined) {
+      let s = 0;
+      let sw = 0;
+      for (let i = 0; i < m; i++) {
+        if (!(n[i]! > 0) || !(y[i]! > 0)) return { nll: Infinity, q: NaN, sigma: null };
+        s += w[i]! * (Math.log(y[i]!) - Math.log(n[i]!));
+        sw += w[i]!;
+      }
+      q = Math.exp(s / sw);
+    }
+    let ss = 0;
+    let jac = 0;
+    let lw = 0;
+    for (let i = 0; i < m; i++) {
+      if (!(n[i]! > 0) || !(y[i]! > 0)) return { nll: Infinity, q, sigma: null };
+      const e = Math.log(y[i]!) - Math.log(q * n[i]!);
+      ss += w[i]! * e * e;
+      jac += Math.log(y[i]!);
+      lw += Math.log(w[i]!);
+    }
+    const s2 = Math.max(ss / m, 1e-300);
+    return { nll: 0.5 * m * (Math.log(2 * Math.PI * s2) + 1) - 0.5 * lw + jac, q, sigma: Math.sqrt(s2) };
+  }
+  if (kind === "normal") {
+    let q = options.fixedQ;
+    if (q === undefined) {
+      let a = 0;
+      let b = 0;
+      for (let i = 0; i < m; i++) {
+        a += w[i]! * y[i]! * n[i]!;
+        b += w[i]! * n[i]! * n[i]!;
+      }
+      q = b > 0 ? a / b : 1;
+    }
+    let ss = 0;
+    let lw = 0;
+    for (let i = 0; i < m; i++) {
+      const e = y[i]! - q * n[i]!;
+      ss += w[i]! * e * e;
+      lw += Math.log(w[i]!);
+    }
+    const s2 = Math.max(ss / m, 1e-300);
+    return { nll: 0.5 * m * (Math.log(2 * Math.PI * s2) + 1) - 0.5 * lw, q, sigma: Math.sqrt(s2) };
+  }
+  if (kind === "poisson") {
+    let q = options.fixedQ;
+    if (q === undefined) {
+      let sy = 0;
+      let sn = 0;
+      for (let i = 0; i < m; i++) {
+        sy += y[i]!;
+        sn += n[i]!;
+      }
+      q = sn > 0 ? sy / sn : 1;
+    }
+    let nll = 0;
+    for (let i = 0; i < m; i++) {
+      const mu = q * n[i]!;
+      if (!(mu > 0)) {
+        if (y[i]! > 0) return { nll: Infinity, q, sigma: null };
+        continue;
+      }
+      nll += mu - y[i]! * Math.log(mu) + logGamma(y[i]! + 1);
+    }
+    return { nll, q, sigma: null };
+  }
+  const q = options.fixedQ ?? options.q ?? 1;
+  const k = options.size ?? 10;
+  let nll = 0;
+  for (let i = 0; i < m; i++) {
+    const mu = q * n[i]!;
+    if (!(mu > 0)) {
+      if (y[i]! > 0) return { nll: Infinity, q, sigma: null };
+      continue;
+    }
+    const yi = y[i]!;
+    nll -= logGamma(yi + k) - logGamma(k) - logGamma(yi + 1) + k * Math.log(k / (k + mu)) + yi * Math.log(mu / (k + mu));
+  }
+  return { nll, q, sigma: null };
+}
+
+/** Observation weights from per-point cv (mean 1; 1 where no cv is given). */
+export function cvWeights(kind: LikelihoodKind, cv: readonly (number | null)[]): number[] {
+  const raw = cv.map((c) => (c === null || !(c > 0) ? null : kind === "lognormal" ? 1 / Math.log(1 + c * c) : 1 / (c * c)));
+  const given = raw.filter((v): v is number => v !== null);
+  if (given.length === 0) return cv.map(() => 1);
+  const mean = given.reduce((a, b) => a + b, 0) / given.length;
+  return raw.map((v) => (v === null ? 1 : v / mean));
+}
