@@ -103,15 +103,17 @@ export function fitProblem(series: Series, options: FitOptions): Result<FitProbl
     names.push("k");
     transforms.push(transformFor({ min: 0, max: 1e12 }));
   }
-  const scaleK = absolute ? maxY * 2 : maxY * 1.5;
+  // With recorded removals N is absolute: K must at least sustain the largest catch.
+  const maxCatch = Math.max(0, ...series.catch);
+  const scaleK = absolute ? Math.max(maxY * 2, (10 * maxCatch) / Math.max(start.r, 0.2)) : maxY * 1.5;
   const natural0: number[] = growth.params.map((p) => {
-    if (p.name === "K") return Math.max(scaleK, start.K);
+    if (p.name === "K") return absolute ? scaleK : Math.max(scaleK, start.K);
     if (p.name === "r") return Math.min(Math.max(start.r, p.min + 0.05), Math.min(p.max * 0.9, 2.5));
     if (p.name === "R0") return Math.min(Math.max(Math.exp(start.r), 1.2), 50);
     if (p.name === "A") return 0.1; // as a fraction of K
     return p.typical;
   });
-  if (opts.method === "observation") natural0.push(y[observed[0]!]!);
+  if (opts.method === "observation") natural0.push(absolute ? 0.7 * natural0[familyNames.indexOf("K")]! : y[observed[0]!]!);
   if (nb) {
     if (absolute) natural0.push(1);
     natural0.push(10);
