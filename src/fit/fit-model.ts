@@ -25,11 +25,13 @@ export interface FitOptions {
   readonly seed?: number;
   /** Random extra starts of the multi-start search (default 8). */
   readonly extraStarts?: number;
+  /** A start in the free coordinates (e.g. the undelayed model's optimum for a delayed fit). */
+  readonly start?: readonly number[];
 }
 
 /** The fitted objective: a function of the free vector, and how to read it back. */
 export interface FitProblem {
-  readonly options: Required<Omit<FitOptions, "seed" | "extraStarts">>;
+  readonly options: Required<Omit<FitOptions, "seed" | "extraStarts" | "start">>;
   /** Names of the free parameters, natural scale: family params, then N0, then q and k (negative binomial). */
   readonly names: string[];
   readonly transforms: Transform[];
@@ -38,7 +40,7 @@ export interface FitProblem {
   /** Natural-scale values of a free vector. */
   natural(free: readonly number[]): number[];
   /** Index predictions (q·N, or the one-step prediction) and observations for a natural vector. */
-  evaluate(values: readonly number[]): { predicted: (number | null)[]; q: number; sigma: number | null; nll: number; shortfall: number } | null;
+  evaluate(values: readonly number[], full?: boolean): { predicted: (number | null)[]; q: number; sigma: number | null; nll: number; shortfall: number } | null;
   /** Number of observations used and estimated parameters (including concentrated q and σ). */
   readonly observations: number;
   readonly estimated: number;
@@ -128,14 +130,20 @@ export function fitProblem(series: Series, options: FitOptions): Result<FitProbl
   const obs = used.map((i) => y[i]!);
   const totalCatch = series.catch.reduce((a, b) => a + b, 0) + 1e-12;
 
-  const modelOf = (v: readonly number[]): Model => {
-    const params: Record<string, number> = {};
-    familyNames.forEach((n, i) => (params[n] = v[i]!));
-    if ("A" in params) params.A = params.A! * params.K!;
-    return { family: opts.family, params: params as Params, delay, growth };
+  // One parameter object and one prediction buffer, refilled at every evaluation (the
+  // objective runs thousands of times per fit; allocation would dominate its cost).
+  const scratchParams: Record<string, number> = {};
+  const scratchModel: Model = { family: opts.family, params: scratchParams as Params, delay, growth };
+  const hasA = familyNames.includes("A");
+  const nBuffer = new Array<number>(used.length).fill(0);
+  const modelOf = (v: readonly number[], fresh: boolean): Model => {
+    const params: Record<string, number> = fresh ? {} : scratchParams;
+    for (let i = 0; i < familyNames.length; i++) params[familyNames[i]!] = v[i]!;
+    if (hasA) params.A = params.A! * params.K!;
+    return fresh ? { family: opts.family, params: params as Params, delay, growth } : scratchModel;
   };
-  const evaluate = (v: readonly number[]) => {
-    const model = modelOf(v);
+  const evaluate = (v: readonly number[], full = true) => {
+    const model = modelOf(v, full);
     let predicted: (number | null)[];
     let shortfall = 0;
     if (opts.method === "observation") {
@@ -166,18 +174,22 @@ export function fitProblem(series: Series, options: FitOptions): Result<FitProbl
         predicted[t + 1] = next;
       }
     }
-    const n = used.map((i) => predicted[i]!);
+    // A modelled stock that collapsed cannot produce positive counts; a floor of 1e-9·K keeps
+    // the likelihood finite (and very poor) so that the search can climb out of such regions.
+    const floor = 1e-9 * model.params.K!;
+    const n = full ? new Array<number>(used.length) : nBuffer;
+    for (let k = 0; k < used.length; k++) n[k] = Math.max(predicted[used[k]!]!, floor);
     const qIndex = familyNames.length + (opts.method === "observation" ? 1 : 0);
     const fixedQ = absolute && opts.method === "observation" ? undefined : 1;
     const lik = nb
       ? negLogLikelihood("negative-binomial", obs, n, weights, { q: absolute && opts.method === "observation" ? v[qIndex]! : 1, size: v[v.length - 1]! })
       : negLogLikelihood(opts.likelihood, obs, n, weights, fixedQ === undefined ? {} : { fixedQ });
-    const scaled = predicted.map((p) => (p === null ? null : lik.q * p));
+    const scaled = full ? predicted.map((p) => (p === null ? null : lik.q * p)) : predicted;
     return { predicted: scaled, q: lik.q, sigma: lik.sigma, nll: lik.nll, shortfall };
   };
   const natural = (free: readonly number[]) => free.map((x, i) => transforms[i]!.fromFree(x));
   const objective = (free: readonly number[]) => {
-    const e = evaluate(natural(free));
+    const e = evaluate(natural(free), false);
     if (!e || !Number.isFinite(e.nll)) return Infinity;
     const s = e.shortfall / totalCatch;
     return e.nll + PENALTY * s * s;
@@ -218,6 +230,6 @@ function rickerStart(series: Series): { r: number; K: number } {
 }
 
 /** Runs the multi-start minimisation of a fit problem (seeded). */
-export function optimiseFit(problem: FitProblem, seed = 1, extraStarts = 8, start = problem.start): Optimum {
-  return minimise(problem.objective, start, { random: extraStarts > 0 ? seededUniform(seed) : undefined, extraStarts, spread: 1.5 });
+export function optimiseFit(problem: FitProblem, seed = 1, extraStarts = 8, start = problem.start, quick = false): Optimum {
+  return minimise(problem.objective, start, { random: extraStarts > 0 ? seededUniform(seed) : undefined, extraStarts, spread: 1.5, quick });
 }

@@ -45,6 +45,8 @@ export interface SeriesFit {
     readonly verdictLabel: string | null;
   };
   readonly identifiability: { readonly trustworthy: boolean; readonly problems: IdentifiabilityProblem[] };
+  /** The optimum in the optimiser's free coordinates (to warm-start related fits). */
+  readonly free: number[];
 }
 
 export type IdentifiabilityProblem =
@@ -66,7 +68,7 @@ export function fitSeries(series: Series, options: FitOptions): Result<SeriesFit
   const problem = fitProblem(series, options);
   if (!problem.ok) return problem;
   const p = problem.value;
-  const opt = optimiseFit(p, options.seed ?? 1, options.extraStarts ?? 8);
+  const opt = optimiseFit(p, options.seed ?? 1, options.extraStarts ?? 8, options.start ? Array.from(options.start) : p.start);
   if (!Number.isFinite(opt.value)) return fail({ code: "fit_not_converged", iterations: opt.iterations });
   return ok(summarise(series, p, opt.x, opt));
 }
@@ -127,6 +129,7 @@ export function summarise(series: Series, p: FitProblem, free: readonly number[]
     diagnostics: { ...residualDiagnostics(residuals), oneStepRmse: oneStepRmse(series, p, values, ev.q) },
     management: management(p, estimates),
     identifiability: { trustworthy: problems.length === 0, problems },
+    free: Array.from(free),
   };
 }
 

@@ -21,7 +21,8 @@ export interface Optimum {
  * Multi-start minimiser that survives bad starts: Nelder–Mead from the given start and from
  * `extraStarts` random points (seeded) drawn within ±`spread` of it in the (transformed)
  * coordinates, each restarted once from its own result, then a damped-Newton polish of the
- * best. `converged` requires the polish to converge with a Newton decrement below
+ * best (`quick`: one simplex pass per start and at most 3 Newton steps, for warm-started
+ * refits such as the bootstrap's). `converged` requires the polish to converge with a Newton decrement below
  * 1e-9·|f| (no further decrease worth a billionth of the objective is predicted).
  * Sources: Nelder & Mead (1965), Computer Journal 7: 308–313; restarts as recommended by
  * Lagarias et al. (1998), SIAM J. Optim. 9: 112–147; polish as in newton-polish.ts.
@@ -29,7 +30,7 @@ export interface Optimum {
 export function minimise(
   f: (x: readonly number[]) => number,
   start: readonly number[],
-  options: { random?: Uniform; extraStarts?: number; spread?: number; maxIter?: number } = {},
+  options: { random?: Uniform; extraStarts?: number; spread?: number; maxIter?: number; quick?: boolean } = {},
 ): Optimum {
   const extra = options.random ? (options.extraStarts ?? 8) : 0;
   const spread = options.spread ?? 2;
@@ -39,13 +40,17 @@ export function minimise(
   const results = starts.map((s) => {
     // Loose simplex tolerances: the Newton polish supplies the last digits.
     const a = nelderMead(f, s, { maxIter: options.maxIter, tol: 1e-9, xtol: 1e-6 });
+    if (options.quick) {
+      iterations += a.iterations;
+      return a;
+    }
     const b = nelderMead(f, a.x, { maxIter: options.maxIter, tol: 1e-9, xtol: 1e-6 });
     iterations += a.iterations + b.iterations;
     return b;
   });
   let best = results[0]!;
   for (const r of results) if (r.value < best.value) best = r;
-  const polished = newtonPolish(f, best.x);
+  const polished = newtonPolish(f, best.x, options.quick ? 3 : 100);
   iterations += polished.iterations;
   const final = polished.value <= best.value ? polished : { ...best, gradientNorm: Infinity, decrement: Infinity };
   const agreeing = results.filter((r) => Math.abs(r.value - final.value) <= 1e-6 * (Math.abs(final.value) + 1e-12)).length;
