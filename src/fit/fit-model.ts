@@ -128,6 +128,7 @@ export function fitProblem(series: Series, options: FitOptions): Result<FitProbl
   const used = opts.method === "observation" ? observed : pairs.map((t) => t + 1);
   const weights = used.map((i) => weightsAll[i]!);
   const obs = used.map((i) => y[i]!);
+  const logObs = obs.map((v) => (v > 0 ? Math.log(v) : NaN));
   const totalCatch = series.catch.reduce((a, b) => a + b, 0) + 1e-12;
 
   // One parameter object and one prediction buffer, refilled at every evaluation (the
@@ -183,7 +184,7 @@ export function fitProblem(series: Series, options: FitOptions): Result<FitProbl
     const fixedQ = absolute && opts.method === "observation" ? undefined : 1;
     const lik = nb
       ? negLogLikelihood("negative-binomial", obs, n, weights, { q: absolute && opts.method === "observation" ? v[qIndex]! : 1, size: v[v.length - 1]! })
-      : negLogLikelihood(opts.likelihood, obs, n, weights, fixedQ === undefined ? {} : { fixedQ });
+      : negLogLikelihood(opts.likelihood, obs, n, weights, fixedQ === undefined ? { logY: logObs } : { fixedQ, logY: logObs });
     const scaled = full ? predicted.map((p) => (p === null ? null : lik.q * p)) : predicted;
     return { predicted: scaled, q: lik.q, sigma: lik.sigma, nll: lik.nll, shortfall };
   };

@@ -53,6 +53,7 @@ export type IdentifiabilityProblem =
   | { code: "correlated"; a: string; b: string; correlation: number }
   | { code: "at_bound"; parameter: string }
   | { code: "hessian_singular" }
+  | { code: "implausible_scale"; parameter: string; value: number; largestAbundance: number }
   | { code: "not_converged" };
 
 /**
@@ -60,8 +61,9 @@ export type IdentifiabilityProblem =
  * (covariance.ts), AICc = 2k + 2·NLL + 2k(k + 1)/(n − k − 1) (Hurvich, C. M. & Tsai, C.-L.
  * (1989). Biometrika 76: 297–307), residual diagnostics, the one-step-ahead prediction error,
  * MSY quantities and the stability verdict of the fitted unharvested model, and an
- * identifiability check: |correlation| > 0.95 between two parameters, an estimate at a bound,
- * a singular Hessian or a failed convergence make the fit "not trustworthy" (thresholds:
+ * identifiability check: |correlation| > 0.995 between two parameters, an estimate at a bound,
+ * K or N0 above 1000× the largest abundance the survey implies, a singular Hessian or a
+ * failed convergence make the fit "not trustworthy" (thresholds:
  * common practice, no source; see Hilborn & Walters 1992, ch. 8, on one-way trips).
  */
 export function fitSeries(series: Series, options: FitOptions): Result<SeriesFit> {
@@ -102,10 +104,17 @@ export function summarise(series: Series, p: FitProblem, free: readonly number[]
   if (!opt.converged) problems.push({ code: "not_converged" });
   if (!cov.positiveDefinite) problems.push({ code: "hessian_singular" });
   for (const b of atBound) problems.push({ code: "at_bound", parameter: b });
+  // An abundance-scale estimate a thousand times the largest abundance the survey implies
+  // (max count / q) is the fit running off towards an unbounded direction.
+  const largest = Math.max(...series.count.map((c) => c ?? 0)) / ev.q;
+  for (const name of ["K", "N0"]) {
+    const v = estimates[name];
+    if (v !== undefined && v > 1000 * largest) problems.push({ code: "implausible_scale", parameter: name, value: v, largestAbundance: largest });
+  }
   for (let i = 0; i < p.names.length; i++) {
     for (let j = 0; j < i; j++) {
       const c = cov.correlation[i]![j];
-      if (c !== null && c !== undefined && Math.abs(c) > 0.95) problems.push({ code: "correlated", a: p.names[j]!, b: p.names[i]!, correlation: c });
+      if (c !== null && c !== undefined && Math.abs(c) > 0.995) problems.push({ code: "correlated", a: p.names[j]!, b: p.names[i]!, correlation: c });
     }
   }
   return {

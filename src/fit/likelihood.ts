@@ -25,33 +25,35 @@ export function negLogLikelihood(
   y: readonly number[],
   n: readonly number[],
   w: readonly number[],
-  options: { fixedQ?: number; q?: number; size?: number } = {},
+  options: { fixedQ?: number; q?: number; size?: number; logY?: readonly number[] } = {},
 ): { nll: number; q: number; sigma: number | null } {
   const m = y.length;
   if (kind === "lognormal") {
-    let q = options.fixedQ;
-    if (q === undefined) {
-      let s = 0;
-      let sw = 0;
-      for (let i = 0; i < m; i++) {
-        if (!(n[i]! > 0) || !(y[i]! > 0)) return { nll: Infinity, q: NaN, sigma: null };
-        s += w[i]! * (Math.log(y[i]!) - Math.log(n[i]!));
-        sw += w[i]!;
-      }
-      q = Math.exp(s / sw);
+    // ln y and its sums are fixed for a series: pass them in (`logY`) to spare the logarithms.
+    const ly = options.logY ?? y.map((v) => (v > 0 ? Math.log(v) : NaN));
+    let lnq = options.fixedQ === undefined ? 0 : Math.log(options.fixedQ);
+    let sw = 0;
+    let s = 0;
+    const ln = lnScratch.length >= m ? lnScratch : (lnScratch = new Float64Array(2 * m));
+    for (let i = 0; i < m; i++) {
+      if (!(n[i]! > 0) || !(y[i]! > 0)) return { nll: Infinity, q: NaN, sigma: null };
+      const l = Math.log(n[i]!);
+      ln[i] = l;
+      s += w[i]! * (ly[i]! - l);
+      sw += w[i]!;
     }
+    if (options.fixedQ === undefined) lnq = s / sw;
     let ss = 0;
     let jac = 0;
     let lw = 0;
     for (let i = 0; i < m; i++) {
-      if (!(n[i]! > 0) || !(y[i]! > 0)) return { nll: Infinity, q, sigma: null };
-      const e = Math.log(y[i]!) - Math.log(q * n[i]!);
+      const e = ly[i]! - lnq - ln[i]!;
       ss += w[i]! * e * e;
-      jac += Math.log(y[i]!);
-      lw += Math.log(w[i]!);
+      jac += ly[i]!;
+      lw += w[i]! === 1 ? 0 : Math.log(w[i]!);
     }
     const s2 = Math.max(ss / m, 1e-300);
-    return { nll: 0.5 * m * (Math.log(2 * Math.PI * s2) + 1) - 0.5 * lw + jac, q, sigma: Math.sqrt(s2) };
+    return { nll: 0.5 * m * (Math.log(2 * Math.PI * s2) + 1) - 0.5 * lw + jac, q: Math.exp(lnq), sigma: Math.sqrt(s2) };
   }
   if (kind === "normal") {
     let q = options.fixedQ;
@@ -110,6 +112,8 @@ export function negLogLikelihood(
   }
   return { nll, q, sigma: null };
 }
+
+let lnScratch = new Float64Array(64);
 
 /** Observation weights from per-point cv (mean 1; 1 where no cv is given). */
 export function cvWeights(kind: LikelihoodKind, cv: readonly (number | null)[]): number[] {

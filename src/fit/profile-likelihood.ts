@@ -20,8 +20,8 @@ export interface ProfileInterval {
  *   { v : 2·(min over the others of NLL(v, ·) − NLL(θ̂)) ≤ χ²₁(0.95) = 3.8415 }.
  *
  * ## Method
- * 1. The profile P(v) re-minimises the other free coordinates (Nelder–Mead + Newton polish,
- *    warm-started from the previous point) with v held fixed.
+ * 1. The profile P(v) re-minimises the other free coordinates (Nelder–Mead + Newton polish)
+ *    with v held fixed, from the previous profile point and from the optimum, keeping the best.
  * 2. From the estimate, the free coordinate of v steps outward (0.05, doubling) until P rises
  *    past NLL + χ²/2 or the coordinate leaves ±25 (the range's edge: an "open" side).
  * 3. Brent's method locates each crossing.
@@ -34,9 +34,14 @@ export function profileInterval(problem: FitProblem, optimum: readonly number[],
   const best = problem.objective(optimum);
   const target = best + level / 2;
   let warm = optimum.filter((_, k) => k !== i);
+  const others = optimum.filter((_, k) => k !== i);
   const profile = (xi: number): number => {
     const g = (z: readonly number[]) => problem.objective([...z.slice(0, i), xi, ...z.slice(i)]);
-    const r = minimise(g, warm);
+    // Two starts — the previous profile point and the overall optimum — guard against a
+    // local minimum, which would raise the profile and narrow the interval.
+    const a = minimise(g, warm);
+    const b = minimise(g, others);
+    const r = a.value <= b.value ? a : b;
     if (Number.isFinite(r.value)) warm = r.x;
     return r.value;
   };
@@ -53,7 +58,9 @@ export function profileInterval(problem: FitProblem, optimum: readonly number[],
       const p = profile(x);
       if (p > target) {
         const root = brentRoot((xx) => profile(xx) - target, inside, x, 1e-8);
-        return { value: natural(root), open: false };
+        // Should re-minimisation make the bracket inconsistent, report the outer point
+        // (a conservative, wider interval).
+        return { value: natural(Number.isFinite(root) ? root : x), open: false };
       }
       inside = x;
       d *= 2;
