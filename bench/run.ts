@@ -4,6 +4,7 @@
 import { closedLoop, parseModel, parseRule } from "../src/index.js";
 import { juryBench } from "./jury.bench.js";
 import { regimeMapBench } from "./regime-map.bench.js";
+import { fitBench } from "./fit.bench.js";
 
 function must<T>(r: { ok: true; value: T } | { ok: false; issue: unknown }): T {
   if (!r.ok) throw new Error(JSON.stringify(r.issue));
@@ -28,6 +29,7 @@ const benches: Record<string, () => void | Promise<void>> = {
   "closed-loop": closedLoopSteps,
   jury: juryBench,
   "regime-map": regimeMapBench,
+  fit: fitBench,
 };
 const only = process.argv.slice(2);
 for (const [name, run] of Object.entries(benches)) if (only.length === 0 || only.includes(name)) await run();

@@ -29,7 +29,7 @@ export function gradient(f: (x: readonly number[]) => number, x: readonly number
 
 export function hessian(f: (x: readonly number[]) => number, x: readonly number[], step = 1.2e-4): number[][] {
   const base = x.map((v) => step * (v !== 0 ? Math.abs(v) : 1));
-  const first = hessianWithSteps(f, x, base);
+  const first = hessianWithSteps(f, x, base, true);
   // Second pass with steps scaled to each direction's curvature, so that f changes by about
   // 1e-7·(|f| + 1) per step: a large curvature with a fixed step would let the truncation error
   // of the difference formulas swamp the cross terms of strongly correlated parameters.
@@ -42,7 +42,7 @@ export function hessian(f: (x: readonly number[]) => number, x: readonly number[
   return hessianWithSteps(f, x, tuned);
 }
 
-function hessianWithSteps(f: (x: readonly number[]) => number, x: readonly number[], hs: readonly number[]): number[][] {
+function hessianWithSteps(f: (x: readonly number[]) => number, x: readonly number[], hs: readonly number[], diagonalOnly = false): number[][] {
   const n = x.length;
   const at = (di: number, si: number, dj: number, sj: number) => {
     const p = Array.from(x);
@@ -54,7 +54,7 @@ function hessianWithSteps(f: (x: readonly number[]) => number, x: readonly numbe
   const H: number[][] = Array.from({ length: n }, () => new Array<number>(n).fill(0));
   for (let i = 0; i < n; i++) {
     H[i]![i] = (-at(i, 2, i, 0) + 16 * at(i, 1, i, 0) - 30 * f0 + 16 * at(i, -1, i, 0) - at(i, -2, i, 0)) / (12 * hs[i]! * hs[i]!);
-    for (let j = 0; j < i; j++) {
+    for (let j = 0; j < i && !diagonalOnly; j++) {
       const v = (at(i, 1, j, 1) - at(i, 1, j, -1) - at(i, -1, j, 1) + at(i, -1, j, -1)) / (4 * hs[i]! * hs[j]!);
       H[i]![j] = v;
       H[j]![i] = v;

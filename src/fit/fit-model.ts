@@ -137,6 +137,7 @@ export function fitProblem(series: Series, options: FitOptions): Result<FitProbl
   const scratchModel: Model = { family: opts.family, params: scratchParams as Params, delay, growth };
   const hasA = familyNames.includes("A");
   const nBuffer = new Array<number>(used.length).fill(0);
+  const projectionBuffers = { abundance: new Array<number>(y.length).fill(0), base: new Array<number>(y.length).fill(0) };
   const modelOf = (v: readonly number[], fresh: boolean): Model => {
     const params: Record<string, number> = fresh ? {} : scratchParams;
     for (let i = 0; i < familyNames.length; i++) params[familyNames[i]!] = v[i]!;
@@ -148,7 +149,7 @@ export function fitProblem(series: Series, options: FitOptions): Result<FitProbl
     let predicted: (number | null)[];
     let shortfall = 0;
     if (opts.method === "observation") {
-      const run = projectThroughCatches(model, opts.timing, v[familyNames.length]!, series.catch, series.stocking);
+      const run = projectThroughCatches(model, opts.timing, v[familyNames.length]!, series.catch, series.stocking, full ? undefined : projectionBuffers);
       if (!run) return null;
       predicted = run.abundance;
       shortfall = run.shortfall;

@@ -43,9 +43,13 @@ export function newtonPolish(f: (x: readonly number[]) => number, start: readonl
   let lambda = 1e-6;
   let it = 0;
   let converged = false;
+  let lastH: number[][] | null = null;
+  let lastG: number[] | null = null;
   for (; it < maxIter; it++) {
     const H = hessian(f, x);
     const g = gradient(f, x, undefined, H);
+    lastH = H;
+    lastG = g;
     let improved = false;
     while (lambda <= 1e8) {
       const A = H.map((row, i) => row.map((v, j) => (i === j ? v + lambda * (Math.abs(v) + 1) : v)));
@@ -57,6 +61,7 @@ export function newtonPolish(f: (x: readonly number[]) => number, start: readonl
           const change = fx - fn;
           x = xn;
           fx = fn;
+          lastH = null;
           lambda = Math.max(lambda / 10, 1e-12);
           improved = true;
           if (change <= 1e-15 * (Math.abs(fx) + 1e-300)) converged = true;
@@ -71,8 +76,9 @@ export function newtonPolish(f: (x: readonly number[]) => number, start: readonl
     }
     if (converged) break;
   }
-  const H = hessian(f, x);
-  const g = gradient(f, x, undefined, H);
+  // Derivatives at the final point: reuse the last iteration's when the point did not move.
+  const H = lastH ?? hessian(f, x);
+  const g = lastH && lastG ? lastG : gradient(f, x, undefined, H);
   const d = solveLinear(H, g);
   // Newton decrement gᵀH⁻¹g/2: the decrease a full Newton step still predicts.
   const decrement = d ? Math.abs(g.reduce((s, v, i) => s + v * d[i]!, 0)) / 2 : Infinity;

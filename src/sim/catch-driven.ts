@@ -20,11 +20,13 @@ export function projectThroughCatches(
   n0: number,
   catches: readonly number[],
   stocking: readonly number[],
+  buffers?: { abundance: number[]; base: number[] },
 ): { abundance: number[]; shortfall: number } | null {
   const { growth, params, delay: T } = model;
   const years = catches.length;
-  const abundance = new Array<number>(years);
-  const base = new Array<number>(years); // the stock that reproduces each year
+  // Callers that project thousands of times (a fit's objective) pass reusable buffers.
+  const abundance = buffers?.abundance ?? new Array<number>(years);
+  const base = buffers?.base ?? new Array<number>(years); // the stock that reproduces each year
   const bound = 1e6 * params.K!;
   let n = n0;
   let shortfall = 0;
