@@ -39,14 +39,14 @@ export function minimise(
   let iterations = 0;
   const results = starts.map((s) => {
     // Loose simplex tolerances: the Newton polish supplies the last digits.
-    const a = nelderMead(f, s, { maxIter: options.maxIter, tol: 1e-8, xtol: 1e-5 });
+    const a = nelderMead(f, s, { maxIter: options.maxIter, tol: 1e-6, xtol: 1e-3 });
     // One restart from the simplex's own result, unless it already agrees with a fresh
     // simplex's stopping rule (quick mode never restarts; the polish takes it from there).
     if (options.quick || a.converged) {
       iterations += a.iterations;
       return a;
     }
-    const b = nelderMead(f, a.x, { maxIter: options.maxIter, tol: 1e-8, xtol: 1e-5 });
+    const b = nelderMead(f, a.x, { maxIter: options.maxIter, tol: 1e-6, xtol: 1e-3 });
     iterations += a.iterations + b.iterations;
     return b;
   });
