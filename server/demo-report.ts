@@ -3,6 +3,8 @@
 import { readFileSync } from "node:fs";
 import { fileURLToPath } from "node:url";
 import { describeIssue, msy, parseScenario, project, type Projection } from "../src/index.js";
+import { parseSeriesCsv } from "../src/fit/series.js";
+import { compareModels } from "../src/fit/compare-models.js";
 
 const file = fileURLToPath(new URL("../data-demo/scenarios/tarnvell-perch.json", import.meta.url));
 const demo = JSON.parse(readFileSync(file, "utf8")) as {
@@ -59,6 +61,18 @@ for (const alt of [{ label: "the threshold rule above", rule: demo.rule }, ...de
   const mean = p.catch.reduce((a, b) => a + b, 0) / Math.max(1, p.catch.length);
   const fate = p.extinctionYear !== null ? `extinct from ${p.extinctionYear}` : `ends at ${fmt(p.abundance.at(-1)!)}`;
   lines.push(`  ${alt.label.padEnd(40)} mean catch ${fmt(mean).padStart(6)}   ${fate}`);
+}
+// Fit every family to the invented lake survey and show the ranking.
+const csv = readFileSync(fileURLToPath(new URL("../data-demo/tarnvell-perch/series.csv", import.meta.url)), "utf8");
+const series = parseSeriesCsv(csv);
+if (!series.ok) fail(describeIssue(series.issue));
+const cmp = compareModels(series.value, { delays: [0] });
+if (cmp.ok) {
+  lines.push("", "Fits to the invented Tarn Vell survey (observation error, lognormal), best first:");
+  lines.push("  model                              AICc   ΔAICc  weight  trustworthy  verdict");
+  for (const f of cmp.value.fits) {
+    lines.push(`  ${f.family.padEnd(32)} ${f.aicc.toFixed(1).padStart(6)} ${f.deltaAicc.toFixed(1).padStart(7)} ${f.weight.toFixed(2).padStart(7)}  ${(f.identifiability.trustworthy ? "yes" : "no").padEnd(11)}  ${f.management.verdictLabel ?? "-"}`);
+  }
 }
 lines.push(
   "",

@@ -58,3 +58,18 @@ export { operatingVerdict } from "./equilibria/operating-verdict.js";
 // Randomness
 export { seededUniform, type Uniform } from "./sim/rng.js";
 export { brentRoot } from "./numeric/brent-root.js";
+
+// Fitting
+export { parseSeriesCsv, MAX_SERIES_ROWS, type Series, type SeriesWarning } from "./fit/series.js";
+export { LIKELIHOODS, negLogLikelihood, cvWeights, type LikelihoodKind } from "./fit/likelihood.js";
+export { fitProblem, optimiseFit, FIT_METHODS, type FitMethod, type FitOptions, type FitProblem } from "./fit/fit-model.js";
+export { fitSeries, summarise, type SeriesFit, type IdentifiabilityProblem } from "./fit/fit-series.js";
+export { compareModels, type ModelComparison } from "./fit/compare-models.js";
+export { profileInterval, CHI2_1_95, type ProfileInterval } from "./fit/profile-likelihood.js";
+export { parametricBootstrap, type Bootstrap } from "./fit/bootstrap.js";
+export { minimise, type Optimum } from "./fit/minimise.js";
+export { nelderMead } from "./fit/nelder-mead.js";
+export { residualDiagnostics, normalCdf, type ResidualDiagnostics } from "./fit/diagnostics.js";
+export { projectThroughCatches } from "./sim/catch-driven.js";
+export { standardNormal } from "./sim/rng.js";
+export { logGamma } from "./numeric/log-gamma.js";

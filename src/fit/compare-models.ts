@@ -31,7 +31,9 @@ export function compareModels(
       // A delayed fit starts from the undelayed optimum (the same free coordinates), plus its
       // own random starts; comparisons use 3 random starts per model (fitSeries uses 8).
       const start = undelayed ? undelayed.free : undefined;
-      const r = fitSeries(series, { extraStarts: 3, ...options, family, delay, ...(start ? { start } : {}) });
+      // Profile intervals are left to the chosen model (fitSeries on it), to keep the
+      // comparison fast.
+      const r = fitSeries(series, { extraStarts: 3, profiles: [], ...options, family, delay, ...(start ? { start } : {}) });
       if (r.ok) {
         fits.push(r.value);
         if (delay === 0) undelayed = r.value;

@@ -27,11 +27,13 @@ export interface FitOptions {
   readonly extraStarts?: number;
   /** A start in the free coordinates (e.g. the undelayed model's optimum for a delayed fit). */
   readonly start?: readonly number[];
+  /** Parameters to give 95% profile-likelihood intervals for (default: the growth rate and K). */
+  readonly profiles?: readonly string[];
 }
 
 /** The fitted objective: a function of the free vector, and how to read it back. */
 export interface FitProblem {
-  readonly options: Required<Omit<FitOptions, "seed" | "extraStarts" | "start">>;
+  readonly options: Required<Omit<FitOptions, "seed" | "extraStarts" | "start" | "profiles">>;
   /** Names of the free parameters, natural scale: family params, then N0, then q and k (negative binomial). */
   readonly names: string[];
   readonly transforms: Transform[];

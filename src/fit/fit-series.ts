@@ -12,6 +12,7 @@ import { residualDiagnostics, type ResidualDiagnostics } from "./diagnostics.js"
 import { fitProblem, optimiseFit, type FitMethod, type FitOptions, type FitProblem } from "./fit-model.js";
 import type { Series } from "./series.js";
 import type { Timing } from "../policy/rule-spec.js";
+import { profileInterval, type ProfileInterval } from "./profile-likelihood.js";
 
 /** A fitted growth model with everything a review panel asks for. */
 export interface SeriesFit {
@@ -45,6 +46,8 @@ export interface SeriesFit {
     readonly verdictLabel: string | null;
   };
   readonly identifiability: { readonly trustworthy: boolean; readonly problems: IdentifiabilityProblem[] };
+  /** 95% profile-likelihood intervals (profile-likelihood.ts) for the parameters asked for. */
+  readonly profiles: ProfileInterval[];
   /** The optimum in the optimiser's free coordinates (to warm-start related fits). */
   readonly free: number[];
 }
@@ -54,14 +57,17 @@ export type IdentifiabilityProblem =
   | { code: "at_bound"; parameter: string }
   | { code: "hessian_singular" }
   | { code: "implausible_scale"; parameter: string; value: number; largestAbundance: number }
-  | { code: "not_converged" };
+  | { code: "not_converged" }
+  | { code: "flat_profile"; parameter: string; side: "lower" | "upper" | "both" };
 
 /**
  * Fits one growth model to a series and reports estimates, standard errors and correlations
  * (covariance.ts), AICc = 2k + 2·NLL + 2k(k + 1)/(n − k − 1) (Hurvich, C. M. & Tsai, C.-L.
  * (1989). Biometrika 76: 297–307), residual diagnostics, the one-step-ahead prediction error,
  * MSY quantities and the stability verdict of the fitted unharvested model, and an
+ * 95% profile-likelihood intervals (by default for the growth rate and K), and an
  * identifiability check: |correlation| > 0.995 between two parameters, an estimate at a bound,
+ * a profile that stays flat to the end of the range,
  * K or N0 above 1000× the largest abundance the survey implies, a singular Hessian or a
  * failed convergence make the fit "not trustworthy" (thresholds:
  * common practice, no source; see Hilborn & Walters 1992, ch. 8, on one-way trips).
@@ -72,11 +78,25 @@ export function fitSeries(series: Series, options: FitOptions): Result<SeriesFit
   const p = problem.value;
   const opt = optimiseFit(p, options.seed ?? 1, options.extraStarts ?? 8, options.start ? Array.from(options.start) : p.start);
   if (!Number.isFinite(opt.value)) return fail({ code: "fit_not_converged", iterations: opt.iterations });
-  return ok(summarise(series, p, opt.x, opt));
+  const growthRate = p.names.find((n) => n === "r" || n === "R0");
+  const wanted = options.profiles ?? [growthRate, "K"].filter((n): n is string => n !== undefined);
+  const profiles: ProfileInterval[] = [];
+  for (const name of wanted) {
+    if (!p.names.includes(name)) return fail({ code: "unknown_option", field: "profiles", value: name, allowed: p.names });
+    const ci = profileInterval(p, opt.x, name);
+    if (ci) profiles.push(ci);
+  }
+  return ok(summarise(series, p, opt.x, opt, profiles));
 }
 
 /** Builds the full report of a fit problem at a free-parameter optimum. */
-export function summarise(series: Series, p: FitProblem, free: readonly number[], opt: { value: number; iterations: number; gradientNorm: number; converged: boolean; agreeingStarts: number; starts: number }): SeriesFit {
+export function summarise(
+  series: Series,
+  p: FitProblem,
+  free: readonly number[],
+  opt: { value: number; iterations: number; gradientNorm: number; converged: boolean; agreeingStarts: number; starts: number },
+  profiles: ProfileInterval[] = [],
+): SeriesFit {
   const values = p.natural(free);
   const ev = p.evaluate(values)!;
   const estimates: Record<string, number> = {};
@@ -104,6 +124,9 @@ export function summarise(series: Series, p: FitProblem, free: readonly number[]
   if (!opt.converged) problems.push({ code: "not_converged" });
   if (!cov.positiveDefinite) problems.push({ code: "hessian_singular" });
   for (const b of atBound) problems.push({ code: "at_bound", parameter: b });
+  for (const ci of profiles) {
+    if (ci.lowerOpen || ci.upperOpen) problems.push({ code: "flat_profile", parameter: ci.parameter, side: ci.lowerOpen && ci.upperOpen ? "both" : ci.lowerOpen ? "lower" : "upper" });
+  }
   // An abundance-scale estimate a thousand times the largest abundance the survey implies
   // (max count / q) is the fit running off towards an unbounded direction.
   const largest = Math.max(...series.count.map((c) => c ?? 0)) / ev.q;
@@ -138,6 +161,7 @@ export function summarise(series: Series, p: FitProblem, free: readonly number[]
     diagnostics: { ...residualDiagnostics(residuals), oneStepRmse: oneStepRmse(series, p, values, ev.q) },
     management: management(p, estimates),
     identifiability: { trustworthy: problems.length === 0, problems },
+    profiles,
     free: Array.from(free),
   };
 }
