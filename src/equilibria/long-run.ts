@@ -120,7 +120,9 @@ export function longRunBatch(loops: readonly ClosedLoop[], start: Float64Array, 
 
 /**
  * The burn-in of many one-number loops, 3 at a time in interleaved lanes so that their
- * independent exp() evaluations overlap in the processor. Per cell it is exactly
+ * independent exp() evaluations overlap in the processor. The three lane bodies are one body
+ * written out three times on purpose (the unrolling is what lets the lanes overlap; a loop
+ * over lane arrays measured slower): change all three together. Per cell it is exactly
  * scalarOrbit's burn-in (Brent's cycle check included); results go to n, period, done, bad.
  */
 function burnInLanes(
