@@ -43,6 +43,7 @@ const TRIALS = 40;
 for (const [family, truth] of [
   ["ricker", { r: 0.8, K: 5000 }],
   ["beverton-holt", { R0: 2.5, K: 5000 }],
+  ["gompertz", { r: 0.5, K: 5000 }],
 ] as const) {
   describe(`recovery of ${family} ${JSON.stringify(truth)}`, () => {
     it(`95% profile intervals cover the true values in ≥ 34 of ${TRIALS} seeded series`, () => {
