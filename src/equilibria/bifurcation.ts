@@ -4,7 +4,7 @@ import type { Rule } from "../policy/rule-spec.js";
 import { fail, ok, type Result } from "../result.js";
 import { longRun, type Regime } from "./long-run.js";
 import { operatingVerdict } from "./operating-verdict.js";
-import { parameterAxis, withParameter } from "./parameter-path.js";
+import { parameterAxis, withParameter, type ParameterAxis } from "./parameter-path.js";
 
 export interface SweepAxis {
   /** Parameter path, e.g. `model.params.r` or `rule.rate`. */
@@ -37,6 +37,28 @@ export interface BifurcationDiagram {
   readonly boundaries: { value: number; from: 1 | 0 | -1 | null; to: 1 | 0 | -1 | null }[];
 }
 
+/**
+ * Validates a sweep axis: a known parameter path (`<name>.path`), 2 … 2000 values
+ * (`<name>.count`), and both ends inside the parameter's range (`<name>.from`, `<name>.to`).
+ */
+export function checkSweepAxis(model: Model, rule: Rule, axis: SweepAxis, name: string): Result<ParameterAxis> {
+  const ax = parameterAxis(model, rule, axis.path, `${name}.path`);
+  if (!ax.ok) return ax;
+  if (!Number.isInteger(axis.count) || axis.count < 2 || axis.count > 2000) {
+    return fail({ code: "param_out_of_range", field: `${name}.count`, value: axis.count, min: 2, max: 2000, minInclusive: true, maxInclusive: true });
+  }
+  for (const [end, v] of [["from", axis.from], ["to", axis.to]] as const) {
+    const check = sweepAt(model, rule, ax.value, v);
+    if (!check.ok) return fail({ ...check.issue, field: `${name}.${end}` } as typeof check.issue);
+  }
+  return ax;
+}
+
+/** The model and rule at one value of a sweep (integer parameters rounded to whole years). */
+export function sweepAt(model: Model, rule: Rule, axis: ParameterAxis, value: number): Result<{ model: Model; rule: Rule }> {
+  return withParameter(model, rule, axis, axis.integer ? Math.round(value) : value);
+}
+
 /** The `count` evenly spaced values of an axis, ends included. */
 export function axisValues(axis: SweepAxis): number[] {
   const out: number[] = [];
@@ -52,16 +74,9 @@ export function axisValues(axis: SweepAxis): number[] {
  * Source: May, R. M. (1976). Nature 261: 459–467 (the diagram for the logistic map).
  */
 export function bifurcationDiagram(model: Model, rule: Rule, axis: SweepAxis, options: BifurcationOptions = {}): Result<BifurcationDiagram> {
-  const ax = parameterAxis(model, rule, axis.path, "axis.path");
+  const ax = checkSweepAxis(model, rule, axis, "axis");
   if (!ax.ok) return ax;
-  if (!Number.isInteger(axis.count) || axis.count < 2 || axis.count > 2000) {
-    return fail({ code: "param_out_of_range", field: "axis.count", value: axis.count, min: 2, max: 2000, minInclusive: true, maxInclusive: true });
-  }
   const values = axisValues(axis);
-  for (const [field, v] of [["axis.from", axis.from], ["axis.to", axis.to]] as const) {
-    const check = withParameter(model, rule, ax.value, ax.value.integer ? Math.round(v) : v);
-    if (!check.ok) return fail({ ...check.issue, field } as typeof check.issue);
-  }
   const K = model.params.K!;
   const start = options.start ?? [K / 2];
   const points: number[][] = [];
@@ -70,13 +85,13 @@ export function bifurcationDiagram(model: Model, rule: Rule, axis: SweepAxis, op
   const equilibrium: (number | null)[] = [];
   const stability: (1 | 0 | -1 | null)[] = [];
   const verdictAt = (v: number) => {
-    const varied = withParameter(model, rule, ax.value, ax.value.integer ? Math.round(v) : v);
+    const varied = sweepAt(model, rule, ax.value, v);
     if (!varied.ok) return { code: null, abundance: null } as const;
     const res = operatingVerdict(closedLoop(varied.value.model, varied.value.rule));
     return res.code === -2 ? ({ code: null, abundance: null } as const) : { code: res.code as 1 | 0 | -1, abundance: res.abundance };
   };
   for (const v of values) {
-    const varied = withParameter(model, rule, ax.value, ax.value.integer ? Math.round(v) : v);
+    const varied = sweepAt(model, rule, ax.value, v);
     if (!varied.ok) return varied;
     const loop = closedLoop(varied.value.model, varied.value.rule);
     const run = longRun(loop, loop.initialState(start), options);

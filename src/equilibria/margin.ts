@@ -1,5 +1,5 @@
 import type { Model } from "../models/model-spec.js";
-import { closedLoop } from "../policy/closed-loop.js";
+import { closedLoop, type ClosedLoop } from "../policy/closed-loop.js";
 import type { Rule } from "../policy/rule-spec.js";
 import { ok, type Result } from "../result.js";
 import type { StabilityKind } from "./classify.js";
@@ -67,31 +67,29 @@ export function stabilityMargin(model: Model, rule: Rule, path: string): Result<
     return ok({ parameter: path, current: ax.current, equilibrium: null, stableNow: false, increase: emptySide(ax.current), decrease: emptySide(ax.current) });
   }
   const stableNow = op.verdict.kind.startsWith("stable");
-  const status = (value: number, near: number): Status => {
+  // The equilibrium followed by continuation: at a new value, the positive one nearest to
+  // `near`, or null when none lies within 0.3·K (it has vanished).
+  const tracked = (value: number, near: number): { loop: ClosedLoop; equilibrium: Equilibrium } | null => {
     const varied = withParameter(model, rule, ax, value);
     if (!varied.ok) return null;
     const loop = closedLoop(varied.value.model, varied.value.rule);
-    const set = findEquilibria(loop, { gridPoints: 400 });
     let best: Equilibrium | null = null;
-    for (const e of set.equilibria) {
+    for (const e of findEquilibria(loop, { gridPoints: 400 }).equilibria) {
       if (e.abundance > 0 && (best === null || Math.abs(e.abundance - near) < Math.abs(best.abundance - near))) best = e;
     }
-    const scaleK = (varied.value.model.params.K ?? K);
-    if (!best || Math.abs(best.abundance - near) > 0.3 * scaleK) return null;
-    const lin = linearise(loop, best.state);
-    const code = lin.lagCoefficients ? juryVerdict(characteristicPolynomial(lin.lagCoefficients)) : equilibriumStability(loop, best).verdict.kind.startsWith("stable") ? 1 : -1;
-    return { n: best.abundance, stable: code === 1 };
+    if (!best || Math.abs(best.abundance - near) > 0.3 * (varied.value.model.params.K ?? K)) return null;
+    return { loop, equilibrium: best };
+  };
+  const status = (value: number, near: number): Status => {
+    const t = tracked(value, near);
+    if (!t) return null;
+    const lin = linearise(t.loop, t.equilibrium.state);
+    const stable = lin.lagCoefficients ? juryVerdict(characteristicPolynomial(lin.lagCoefficients)) === 1 : equilibriumStability(t.loop, t.equilibrium).verdict.kind.startsWith("stable");
+    return { n: t.equilibrium.abundance, stable };
   };
   const kindAt = (value: number, near: number): StabilityKind | "equilibrium-lost" => {
-    const varied = withParameter(model, rule, ax, value);
-    if (!varied.ok) return "equilibrium-lost";
-    const loop = closedLoop(varied.value.model, varied.value.rule);
-    const set = findEquilibria(loop, { gridPoints: 400 });
-    const pos = set.equilibria.filter((e) => e.abundance > 0);
-    if (pos.length === 0) return "equilibrium-lost";
-    const best = pos.reduce((a, b) => (Math.abs(b.abundance - near) < Math.abs(a.abundance - near) ? b : a));
-    if (Math.abs(best.abundance - near) > 0.3 * (varied.value.model.params.K ?? K)) return "equilibrium-lost";
-    return equilibriumStability(loop, best).verdict.kind;
+    const t = tracked(value, near);
+    return t ? equilibriumStability(t.loop, t.equilibrium).verdict.kind : "equilibrium-lost";
   };
 
   const side = (dir: 1 | -1): MarginSide => {

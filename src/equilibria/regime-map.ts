@@ -2,10 +2,9 @@ import type { Model } from "../models/model-spec.js";
 import { closedLoop, type ClosedLoop } from "../policy/closed-loop.js";
 import type { Rule } from "../policy/rule-spec.js";
 import { fail, ok, type Result } from "../result.js";
-import { axisValues, type SweepAxis } from "./bifurcation.js";
+import { axisValues, checkSweepAxis, sweepAt, type SweepAxis } from "./bifurcation.js";
 import { longRun, longRunBatch, REGIMES, type LongRunOptions } from "./long-run.js";
 import { operatingVerdict } from "./operating-verdict.js";
-import { parameterAxis, withParameter, type ParameterAxis } from "./parameter-path.js";
 
 export interface RegimeMapOptions extends LongRunOptions {
   /** Start abundance and history (default K/2). */
@@ -37,21 +36,11 @@ export interface RegimeMap {
  * Application of the z-Transform Method. Wiley.
  */
 export function regimeMap(model: Model, rule: Rule, xAxis: SweepAxis, yAxis: SweepAxis, options: RegimeMapOptions = {}): Result<RegimeMap> {
-  const ax = parameterAxis(model, rule, xAxis.path, "x.path");
+  const ax = checkSweepAxis(model, rule, xAxis, "x");
   if (!ax.ok) return ax;
-  const ay = parameterAxis(model, rule, yAxis.path, "y.path");
+  const ay = checkSweepAxis(model, rule, yAxis, "y");
   if (!ay.ok) return ay;
   if (xAxis.path === yAxis.path) return fail({ code: "constraint_violated", field: "y.path", constraint: "the two axes must be different parameters" });
-  for (const [name, a] of [["x", xAxis], ["y", yAxis]] as const) {
-    if (!Number.isInteger(a.count) || a.count < 2 || a.count > 2000) {
-      return fail({ code: "param_out_of_range", field: `${name}.count`, value: a.count, min: 2, max: 2000, minInclusive: true, maxInclusive: true });
-    }
-    const axis = name === "x" ? ax.value : ay.value;
-    for (const [end, v] of [["from", a.from], ["to", a.to]] as const) {
-      const check = withParameter(model, rule, axis, axis.integer ? Math.round(v) : v);
-      if (!check.ok) return fail({ ...check.issue, field: `${name}.${end}` } as typeof check.issue);
-    }
-  }
   const xs = axisValues(xAxis);
   const ys = axisValues(yAxis);
   const nx = xs.length;
@@ -64,10 +53,10 @@ export function regimeMap(model: Model, rule: Rule, xAxis: SweepAxis, yAxis: Swe
   const stride = Math.max(1, options.boundaryStride ?? 8);
   for (let i = c0; i < c1; i++) {
     const xv = xs[i]!;
-    const column = withParameter(model, rule, ax.value, ax.value.integer ? Math.round(xv) : xv);
+    const column = sweepAt(model, rule, ax.value, xv);
     if (!column.ok) continue;
     const at = (yv: number) => {
-      const m2 = withParameter(column.value.model, column.value.rule, ay.value as ParameterAxis, ay.value.integer ? Math.round(yv) : yv);
+      const m2 = sweepAt(column.value.model, column.value.rule, ay.value, yv);
       return m2.ok ? closedLoop(m2.value.model, m2.value.rule) : null;
     };
     let tracked: number | undefined;

@@ -1,5 +1,6 @@
 import { seededUniform, standardNormal, type Uniform } from "../sim/rng.js";
 import { fitProblem } from "./fit-model.js";
+import { cvWeights } from "./likelihood.js";
 import { minimise } from "./minimise.js";
 import type { Series } from "./series.js";
 import type { SeriesFit } from "./fit-series.js";
@@ -26,14 +27,12 @@ export function parametricBootstrap(series: Series, fit: SeriesFit, optimum: rea
   const u = seededUniform(seed);
   const draws: Record<string, number>[] = [];
   let failed = 0;
-  const w = series.cv.map((c) => (c !== null && c > 0 ? (fit.likelihood === "lognormal" ? 1 / Math.log(1 + c * c) : 1 / (c * c)) : 1));
-  const wMean = mean(w.filter((_, i) => series.cv[i] !== null)) || 1;
+  const w = cvWeights(fit.likelihood, series.cv);
   for (let b = 0; b < count; b++) {
     const count2 = series.count.map((y, t) => {
       const mu = fit.fitted[t];
       if (y === null || mu === null || mu === undefined) return null;
-      const wt = series.cv[t] !== null ? w[t]! / wMean : 1;
-      return draw(fit, mu, wt, u);
+      return draw(fit, mu, w[t]!, u);
     });
     const synthetic: Series = { ...series, count: count2 };
     const p = fitProblem(synthetic, { family: fit.family, delay: fit.delay, method: fit.method, likelihood: fit.likelihood, timing: fit.timing });
@@ -94,8 +93,4 @@ function gamma(shape: number, u: Uniform): number {
     const uu = u();
     if (Math.log(uu || 1e-300) < 0.5 * x * x + d - d * v + d * Math.log(v)) return d * v;
   }
-}
-
-function mean(v: number[]): number {
-  return v.length ? v.reduce((a, b) => a + b, 0) / v.length : 0;
 }

@@ -4,7 +4,7 @@ import { MAX_DELAY, type Model } from "../models/model-spec.js";
 import type { Timing } from "../policy/rule-spec.js";
 import { fail, ok, type Result } from "../result.js";
 import { seededUniform } from "../sim/rng.js";
-import { projectThroughCatches } from "../sim/catch-driven.js";
+import { projectThroughCatches, yearWithCatch, type YearWithCatch } from "../sim/catch-driven.js";
 import { cvWeights, negLogLikelihood, type LikelihoodKind } from "./likelihood.js";
 import { minimise, type Optimum } from "./minimise.js";
 import { transformFor, type Transform } from "./parameter-transform.js";
@@ -139,6 +139,7 @@ export function fitProblem(series: Series, options: FitOptions): Result<FitProbl
   const scratchModel: Model = { family: opts.family, params: scratchParams as Params, delay, growth };
   const hasA = familyNames.includes("A");
   const nBuffer = new Array<number>(used.length).fill(0);
+  const year: YearWithCatch = { next: 0, base: 0, shortfall: 0 };
   const projectionBuffers = { abundance: new Array<number>(y.length).fill(0), base: new Array<number>(y.length).fill(0) };
   const modelOf = (v: readonly number[], fresh: boolean): Model => {
     const params: Record<string, number> = fresh ? {} : scratchParams;
@@ -158,24 +159,13 @@ export function fitProblem(series: Series, options: FitOptions): Result<FitProbl
     } else {
       predicted = y.map(() => null);
       for (const t of pairs) {
-        // One year of the closed loop from the observed stock, its density term T years back.
-        const n = y[t]!;
-        const c = series.catch[t]!;
-        let next: number;
-        if (opts.timing === "before") {
-          const b = n - Math.min(c, n);
-          shortfall += c - Math.min(c, n);
-          const dens = delay === 0 ? b : Math.max(y[t - delay]! - series.catch[t - delay]!, 0);
-          const p = b > 0 ? b * growth.factor(dens, model.params) : 0;
-          next = Math.max(p, 0) + series.stocking[t]!;
-        } else {
-          const dens = delay === 0 ? n : y[t - delay]!;
-          const p = Math.max(n > 0 ? n * growth.factor(dens, model.params) : 0, 0);
-          shortfall += c - Math.min(c, p);
-          next = p - Math.min(c, p) + series.stocking[t]!;
-        }
-        if (!Number.isFinite(next)) return null;
-        predicted[t + 1] = next;
+        // One year of the closed loop from the observed stock, its density term T years back
+        // (the observed abundance, or under harvest before reproduction what escaped the catch).
+        const past = delay === 0 ? null : opts.timing === "before" ? Math.max(y[t - delay]! - series.catch[t - delay]!, 0) : y[t - delay]!;
+        yearWithCatch(model, opts.timing, y[t]!, past, series.catch[t]!, series.stocking[t]!, year);
+        if (!Number.isFinite(year.next)) return null;
+        shortfall += year.shortfall;
+        predicted[t + 1] = year.next;
       }
     }
     // A modelled stock that collapsed cannot produce positive counts; a floor of 1e-9·K keeps

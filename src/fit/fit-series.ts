@@ -12,6 +12,8 @@ import { residualDiagnostics, type ResidualDiagnostics } from "./diagnostics.js"
 import { fitProblem, optimiseFit, type FitMethod, type FitOptions, type FitProblem } from "./fit-model.js";
 import type { Series } from "./series.js";
 import type { Timing } from "../policy/rule-spec.js";
+import type { Model } from "../models/model-spec.js";
+import { yearWithCatch, type YearWithCatch } from "../sim/catch-driven.js";
 import { profileInterval, type ProfileInterval } from "./profile-likelihood.js";
 
 /** A fitted growth model with everything a review panel asks for. */
@@ -159,43 +161,44 @@ export function summarise(
     fitted: ev.predicted,
     residuals,
     diagnostics: { ...residualDiagnostics(residuals), oneStepRmse: oneStepRmse(series, p, values, ev.q) },
-    management: management(p, estimates),
+    management: management(p, values),
     identifiability: { trustworthy: problems.length === 0, problems },
     profiles,
     free: Array.from(free),
   };
 }
 
-/** RMSE of log one-step-ahead predictions ŷ[t+1] = q·G(y[t]/q) (the process-error forecast). */
+/** RMSE of log one-step-ahead predictions ŷ[t+1] = q·G(y[t]/q) through that year's catch (the process-error forecast). */
 function oneStepRmse(series: Series, p: FitProblem, values: readonly number[], q: number): number | null {
-  const growth = families[p.options.family];
-  const params: Record<string, number> = {};
-  growth.params.forEach((g, i) => (params[g.name] = values[i]!));
-  if ("A" in params) params.A = params.A! * params.K!;
+  const model = fittedModel(p, values);
+  const year: YearWithCatch = { next: 0, base: 0, shortfall: 0 };
+  const T = p.options.delay;
   let ss = 0;
   let m = 0;
-  for (let t = 0; t + 1 < series.count.length; t++) {
+  for (let t = T; t + 1 < series.count.length; t++) {
     const a = series.count[t];
     const b = series.count[t + 1];
-    if (a === null || b === null || !(a! > 0) || !(b! > 0)) continue;
-    const n = a! / q;
-    const c = series.catch[t]!;
-    const base = p.options.timing === "before" ? Math.max(n - c, 0) : n;
-    let next = base > 0 ? base * growth.factor(base, params) : 0;
-    if (p.options.timing === "after") next -= Math.min(c, next);
-    next += series.stocking[t]!;
-    if (!(next > 0)) continue;
-    ss += (Math.log(b!) - Math.log(q * next)) ** 2;
+    const past = T === 0 ? null : series.count[t - T];
+    if (a === null || b === null || !(a! > 0) || !(b! > 0) || past === undefined || (T > 0 && past === null)) continue;
+    yearWithCatch(model, p.options.timing, a! / q, past === null ? null : past / q, series.catch[t]!, series.stocking[t]!, year);
+    if (!(year.next > 0)) continue;
+    ss += (Math.log(b!) - Math.log(q * year.next)) ** 2;
     m++;
   }
   return m > 0 ? Math.sqrt(ss / m) : null;
 }
 
-function management(p: FitProblem, est: Record<string, number>): SeriesFit["management"] {
+/** The growth model at a natural-scale parameter vector (the Allee A is stored as a fraction of K). */
+function fittedModel(p: FitProblem, values: readonly number[]): Model {
   const growth = families[p.options.family];
   const params: Record<string, number> = {};
-  for (const g of growth.params) params[g.name] = est[g.name]!;
-  const model = { family: p.options.family, params, delay: p.options.delay, growth };
+  growth.params.forEach((g, i) => (params[g.name] = values[i]!));
+  if ("A" in params) params.A = params.A! * params.K!;
+  return { family: p.options.family, params, delay: p.options.delay, growth };
+}
+
+function management(p: FitProblem, values: readonly number[]): SeriesFit["management"] {
+  const model = fittedModel(p, values);
   const rule = parseRule({ kind: "no-harvest", timing: p.options.timing });
   if (!rule.ok) throw new Error("management: the no-harvest rule is valid");
   const analysis = analyseStability(closedLoop(model, rule.value), { gridPoints: 400 });

@@ -30,29 +30,49 @@ export function projectThroughCatches(
   const bound = 1e6 * params.K!;
   let n = n0;
   let shortfall = 0;
+  const year: YearWithCatch = { next: 0, base: 0, shortfall: 0 };
   for (let t = 0; t < years; t++) {
     abundance[t] = n;
-    const c = catches[t]!;
-    let next: number;
-    if (timing === "before") {
-      const taken = c < n ? c : n;
-      shortfall += c - taken;
-      const b = n - taken;
-      base[t] = b;
-      const dens = T === 0 ? b : t - T >= 0 ? base[t - T]! : n0;
-      const p = b > 0 ? b * growth.factor(dens, params) : 0;
-      next = (p < 0 ? 0 : p) + stocking[t]!;
-    } else {
-      base[t] = n;
-      const dens = T === 0 ? n : t - T >= 0 ? base[t - T]! : n0;
-      let p = n > 0 ? n * growth.factor(dens, params) : 0;
-      if (p < 0) p = 0;
-      const taken = c < p ? c : p;
-      shortfall += c - taken;
-      next = p - taken + stocking[t]!;
-    }
-    if (!(next <= bound)) return null;
-    n = next;
+    const past = T === 0 ? null : t - T >= 0 ? base[t - T]! : n0;
+    yearWithCatch(model, timing, n, past, catches[t]!, stocking[t]!, year);
+    base[t] = year.base;
+    shortfall += year.shortfall;
+    if (!(year.next <= bound)) return null;
+    n = year.next;
   }
   return { abundance, shortfall };
+}
+
+/** One year with a recorded catch: next abundance, the stock that reproduced, the catch it could not supply. */
+export interface YearWithCatch {
+  next: number;
+  base: number;
+  shortfall: number;
+}
+
+/**
+ * One year of the closed loop with the recorded catch C and release A in place of a rule:
+ *   after:  P = N·g(M),  N' = P − min(C, P) + A,       base = N
+ *   before: B = N − min(C, N),  N' = B·g(M) + A,       base = B
+ * M is this year's base when `pastBase` is null (no delay), else `pastBase` (the base T years
+ * back). A negative growth step is set to zero, as in closed-loop.ts. Writes into `out`.
+ */
+export function yearWithCatch(model: Model, timing: Timing, n: number, pastBase: number | null, c: number, a: number, out: YearWithCatch): YearWithCatch {
+  const { growth, params } = model;
+  if (timing === "before") {
+    const taken = c < n ? c : n;
+    const b = n - taken;
+    const p = b > 0 ? b * growth.factor(pastBase ?? b, params) : 0;
+    out.next = (p < 0 ? 0 : p) + a;
+    out.base = b;
+    out.shortfall = c - taken;
+  } else {
+    let p = n > 0 ? n * growth.factor(pastBase ?? n, params) : 0;
+    if (p < 0) p = 0;
+    const taken = c < p ? c : p;
+    out.next = p - taken + a;
+    out.base = n;
+    out.shortfall = c - taken;
+  }
+  return out;
 }
