@@ -5,6 +5,7 @@ import { closedLoop, parseModel, parseRule } from "../src/index.js";
 import { juryBench } from "./jury.bench.js";
 import { regimeMapBench } from "./regime-map.bench.js";
 import { fitBench } from "./fit.bench.js";
+import { projectionBench } from "./projection.bench.js";
 
 function must<T>(r: { ok: true; value: T } | { ok: false; issue: unknown }): T {
   if (!r.ok) throw new Error(JSON.stringify(r.issue));
@@ -30,6 +31,7 @@ const benches: Record<string, () => void | Promise<void>> = {
   jury: juryBench,
   "regime-map": regimeMapBench,
   fit: fitBench,
+  projection: projectionBench,
 };
 const only = process.argv.slice(2);
 for (const [name, run] of Object.entries(benches)) if (only.length === 0 || only.includes(name)) await run();

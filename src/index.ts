@@ -6,7 +6,7 @@ export { MAX_ABUNDANCE, type ParamInfo } from "./params.js";
 // Growth models
 export { FAMILY_IDS, production, productionSlope, densityTerm, type FamilyId, type GrowthFamily, type Params } from "./models/growth-family.js";
 export { families } from "./models/families.js";
-export { parseModel, modelSpecSchema, MAX_DELAY, type Model, type ModelSpec } from "./models/model-spec.js";
+export { parseModel, withParams, modelSpecSchema, MAX_DELAY, type Model, type ModelSpec } from "./models/model-spec.js";
 export { discreteLogistic } from "./models/discrete-logistic.js";
 export { ricker } from "./models/ricker.js";
 export { bevertonHolt } from "./models/beverton-holt.js";
@@ -26,13 +26,20 @@ export {
 // Harvest and stocking rules
 export { RULE_KINDS, type HarvestRule, type RuleKind } from "./policy/harvest-rule.js";
 export { parseRule, ruleSpecSchema, RULE_SETTINGS, TIMINGS, MAX_SURVEY_LAG, type Rule, type RuleSpec, type RuleSpecInput, type Timing } from "./policy/rule-spec.js";
-export { closedLoop, stateLayout, type ClosedLoop, type StateLayout, type StepRecord } from "./policy/closed-loop.js";
+export { closedLoop, stateLayout, type ClosedLoop, type StateLayout, type StepRecord, type StepNoise } from "./policy/closed-loop.js";
 export { capQuota } from "./policy/quota-cap.js";
 export { msy, type MsyQuantities } from "./policy/msy.js";
 
 // Projection
 export { parseScenario, MAX_HORIZON, type Scenario } from "./sim/scenario.js";
 export { project, projectLoop, UNBOUNDED_FACTOR, type Projection } from "./sim/project.js";
+export { parseUncertainty, uncertaintySchema, UNCERTAINTY_SETTINGS, MAX_REPLICATES, MAX_PARAMETER_SETS, type Uncertainty, type UncertaintyInput } from "./sim/uncertainty.js";
+export { simulateBlocks, projectionBlocks, type ProjectionParts } from "./sim/stochastic-projection.js";
+export { summariseProjection, PERCENTILE_LEVELS, type StochasticProjection, type RiskMetrics, type Estimate } from "./sim/risk-metrics.js";
+export { projectStochastic } from "./sim/stochastic-run.js";
+export { compareRules, ruleOutcome, parseRules, MARGIN_PARAMETER, MAX_COMPARED_RULES, type RuleOutcome } from "./sim/rule-comparison.js";
+export { robustVerdict, ROBUST_CLASSES, type RobustVerdict, type RobustClass } from "./sim/robust-verdict.js";
+export { zigguratNormal, type IntSource } from "./sim/ziggurat.js";
 
 // Numerics
 export { lambertW0 } from "./numeric/lambert-w.js";

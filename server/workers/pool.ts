@@ -4,11 +4,25 @@ import { REGIMES } from "../../src/equilibria/long-run.js";
 import { axisValues, type SweepAxis } from "../../src/equilibria/bifurcation.js";
 import type { RegimeMapOptions } from "../../src/equilibria/regime-map.js";
 import type { Issue } from "../../src/issues.js";
-import type { RegimeMapTask, TaskResult } from "./tasks.js";
+import { parseRule } from "../../src/policy/rule-spec.js";
+import { summariseProjection, type StochasticProjection } from "../../src/sim/risk-metrics.js";
+import { parseScenario } from "../../src/sim/scenario.js";
+import { projectionBlocks } from "../../src/sim/stochastic-projection.js";
+import { parseRules, ruleOutcome, type RuleOutcome } from "../../src/sim/rule-comparison.js";
+import { parseUncertainty } from "../../src/sim/uncertainty.js";
+import type { ProjectionTask, ProjectionTaskResult, RegimeMapTask, TaskResult } from "./tasks.js";
 
 export interface AnalysisPool {
   readonly threads: number;
   regimeMap(req: { model: unknown; rule: unknown; x: SweepAxis; y: SweepAxis; options?: Omit<RegimeMapOptions, "columns"> }, signal?: AbortSignal, onProgress?: (done: number, total: number) => void): Promise<PooledRegimeMap>;
+  /**
+   * A stochastic projection split by replicate blocks across the workers; the same numbers,
+   * bit for bit, as projectStochastic on one thread. `rule` (a rule spec) replaces the
+   * scenario's rule. Rejects with an AbortError when the signal fires.
+   */
+  projection(req: { scenario: unknown; uncertainty: unknown; rule?: unknown }, signal?: AbortSignal, onProgress?: (done: number, total: number) => void): Promise<{ ok: true; value: StochasticProjection } | { ok: false; issue: Issue }>;
+  /** Candidate rules compared on the same draws (see compareRules in src/sim/rule-comparison.ts). */
+  compareRules(req: { scenario: unknown; uncertainty: unknown; rules: unknown }, signal?: AbortSignal, onProgress?: (done: number, total: number) => void): Promise<{ ok: true; value: RuleOutcome[] } | { ok: false; issue: Issue }>;
   close(): Promise<void>;
 }
 
@@ -55,6 +69,55 @@ export function createAnalysisPool(threads: number): AnalysisPool {
       }
       boundary.sort((a, b) => a.x - b.x || a.y - b.y);
       return { ok: true, x: { path: req.x.path, values: axisValues(req.x) }, y: { path: req.y.path, values: axisValues(req.y) }, regimes, periods, regimeNames: REGIMES, boundary };
+    },
+    async projection(req, signal, onProgress) {
+      // Validate here too: a bad request fails before any worker starts, with the field named.
+      const scenario = parseScenario(req.scenario);
+      if (!scenario.ok) return scenario;
+      const uncertainty = parseUncertainty(req.uncertainty, scenario.value.model);
+      if (!uncertainty.ok) return uncertainty;
+      if (req.rule !== undefined) {
+        const r = parseRule(req.rule);
+        if (!r.ok) return r;
+      }
+      const blocks = projectionBlocks(uncertainty.value);
+      // A few chunks per worker, so progress moves and the last chunks balance the load.
+      const chunks = Math.min(blocks, threads * 4);
+      const tasks: ProjectionTask[] = [];
+      for (let c = 0; c < chunks; c++) {
+        const from = Math.floor((c * blocks) / chunks);
+        const to = Math.floor(((c + 1) * blocks) / chunks);
+        tasks.push({ kind: "projection-blocks", scenario: req.scenario, uncertainty: req.uncertainty, ...(req.rule !== undefined ? { rule: req.rule } : {}), blocks: [from, to] });
+      }
+      let done = 0;
+      const results = await Promise.all(
+        tasks.map(async (t) => {
+          const r = (await piscina.run(t, { signal })) as ProjectionTaskResult;
+          done += t.blocks[1] - t.blocks[0];
+          onProgress?.(done, blocks);
+          return r;
+        }),
+      );
+      const parts = [];
+      for (const r of results) {
+        if (!r.ok) return r;
+        parts.push(r.parts);
+      }
+      return { ok: true, value: summariseProjection(parts, scenario.value, uncertainty.value) };
+    },
+    async compareRules(req, signal, onProgress) {
+      const scenario = parseScenario(req.scenario);
+      if (!scenario.ok) return scenario;
+      const rules = parseRules(req.rules);
+      if (!rules.ok) return rules;
+      const specs = req.rules as unknown[];
+      const out: RuleOutcome[] = [];
+      for (let i = 0; i < specs.length; i++) {
+        const p = await this.projection({ scenario: req.scenario, uncertainty: req.uncertainty, rule: specs[i] }, signal, (d, total) => onProgress?.(i * total + d, specs.length * total));
+        if (!p.ok) return p;
+        out.push(ruleOutcome(scenario.value, rules.value[i]!, p.value));
+      }
+      return { ok: true, value: out };
     },
     close: () => piscina.destroy(),
   };

@@ -5,6 +5,9 @@ import { parseRule } from "../../src/policy/rule-spec.js";
 import { regimeMap, type RegimeMapOptions } from "../../src/equilibria/regime-map.js";
 import type { SweepAxis } from "../../src/equilibria/bifurcation.js";
 import type { Issue } from "../../src/issues.js";
+import { parseScenario } from "../../src/sim/scenario.js";
+import { parseUncertainty } from "../../src/sim/uncertainty.js";
+import { simulateBlocks, type ProjectionParts } from "../../src/sim/stochastic-projection.js";
 
 export interface RegimeMapTask {
   readonly kind: "regime-map";
@@ -16,11 +19,40 @@ export interface RegimeMapTask {
   readonly columns: readonly [number, number];
 }
 
+/** Replicate blocks [from, to) of a stochastic projection, optionally under another rule. */
+export interface ProjectionTask {
+  readonly kind: "projection-blocks";
+  readonly scenario: unknown;
+  readonly uncertainty: unknown;
+  readonly rule?: unknown;
+  readonly blocks: readonly [number, number];
+}
+
+export type ProjectionTaskResult = { ok: true; parts: ProjectionParts } | { ok: false; issue: Issue };
+
 export type TaskResult =
   | { ok: true; regimes: Uint8Array; periods: Uint8Array; boundary: { x: number; y: number; from: number; to: number }[]; columns: readonly [number, number] }
   | { ok: false; issue: Issue };
 
-export function runTask(task: RegimeMapTask): TaskResult {
+export function runTask(task: RegimeMapTask | ProjectionTask): TaskResult | ProjectionTaskResult {
+  return task.kind === "regime-map" ? runRegimeMap(task) : runProjection(task);
+}
+
+function runProjection(task: ProjectionTask): ProjectionTaskResult {
+  const scenario = parseScenario(task.scenario);
+  if (!scenario.ok) return scenario;
+  const uncertainty = parseUncertainty(task.uncertainty, scenario.value.model);
+  if (!uncertainty.ok) return uncertainty;
+  let rule = scenario.value.rule;
+  if (task.rule !== undefined) {
+    const r = parseRule(task.rule);
+    if (!r.ok) return r;
+    rule = r.value;
+  }
+  return { ok: true, parts: simulateBlocks(scenario.value, uncertainty.value, task.blocks[0], task.blocks[1], rule) };
+}
+
+function runRegimeMap(task: RegimeMapTask): TaskResult {
   const model = parseModel(task.model);
   if (!model.ok) return model;
   const rule = parseRule(task.rule);

@@ -34,6 +34,7 @@ export const alleeRicker: GrowthFamily<AlleeRickerParams> = {
   ],
   constraints: [{ field: "params.A", text: "the Allee threshold A must be below the carrying capacity K", holds: (p) => p.A < p.K }],
   factor: (m, { r, K, A }) => Math.exp(r * (1 - m / K) * (m / A - 1)),
+  logFactor: (m, { r, K, A }) => r * (1 - m / K) * (m / A - 1),
   factorSlope: (m, { r, K, A }) => {
     const g = Math.exp(r * (1 - m / K) * (m / A - 1));
     return g * r * ((1 - m / K) / A - (m / A - 1) / K);

@@ -33,6 +33,7 @@ export const gompertz: GrowthFamily<GompertzParams> = {
   ],
   constraints: [],
   factor: (m, { r, K }) => Math.exp(r * Math.log(K / Math.max(m, FLOOR * K))),
+  logFactor: (m, { r, K }) => r * Math.log(K / Math.max(m, FLOOR * K)),
   factorSlope: (m, { r, K }) => {
     const mm = Math.max(m, FLOOR * K);
     return (-r / mm) * Math.exp(r * Math.log(K / mm));

@@ -45,6 +45,12 @@ export interface GrowthFamily<P extends Params = Params> {
   readonly constraints: readonly ParamConstraint<P>[];
   /** Per-capita factor g(M) at density term M ≥ 0. */
   factor(m: number, p: P): number;
+  /**
+   * ln g(M), for families whose factor is an exponential (Ricker, Gompertz, Allee–Ricker):
+   * factor(M) is exactly Math.exp(logFactor(M)), so a stochastic year can fold the
+   * lognormal noise into the same exp: N·exp(ln g(M) + ε).
+   */
+  logFactor?(m: number, p: P): number;
   /** dg/dM at M ≥ 0 (may be −∞ at M = 0 for exponents below one; callers multiply by N). */
   factorSlope(m: number, p: P): number;
   /** The equilibria of the unharvested, undelayed map N = f(N), in increasing order. */

@@ -74,3 +74,22 @@ function checkConstraints(growth: GrowthFamily<Params>, p: Params, prefix: strin
   }
   return undefined;
 }
+
+/**
+ * The model with new parameter values, checked against each parameter's range and the
+ * family's cross-parameter constraints without re-parsing the spec (fast enough for tens
+ * of thousands of parameter draws). Fails naming `${prefix}.${name}`.
+ */
+export function withParams(model: Model, params: Params, prefix = "model.params"): Result<Model> {
+  for (const info of model.growth.params) {
+    const v = params[info.name];
+    const field = `${prefix}.${info.name}`;
+    if (v === undefined) return fail({ code: "missing_field", field });
+    if (!Number.isFinite(v)) return fail({ code: "not_finite", field, received: String(v) });
+    const below = info.minInclusive ? v < info.min : v <= info.min;
+    const above = info.maxInclusive ? v > info.max : v >= info.max;
+    if (below || above) return fail({ code: "param_out_of_range", field, value: v, min: info.min, max: info.max, minInclusive: info.minInclusive, maxInclusive: info.maxInclusive });
+  }
+  for (const c of model.growth.constraints) if (!c.holds(params)) return fail({ code: "constraint_violated", field: `${prefix}.${c.field.replace(/^params\./, "")}`, constraint: c.text });
+  return ok({ ...model, params });
+}

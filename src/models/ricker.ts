@@ -31,6 +31,7 @@ export const ricker: GrowthFamily<RickerParams> = {
   ],
   constraints: [],
   factor: (m, { r, K }) => Math.exp(r * (1 - m / K)),
+  logFactor: (m, { r, K }) => r * (1 - m / K),
   factorSlope: (m, { r, K }) => (-r / K) * Math.exp(r * (1 - m / K)),
   equilibria: ({ K }) => [0, K],
   surplusPeak: ({ r, K }) => {

@@ -38,6 +38,17 @@ export interface StepRecord {
 }
 
 /**
+ * Noise on one year of the loop (0, 1 and 1 for the deterministic map): production
+ * P × exp(logProcess), the survey the rule sees y × survey, and the catch aimed at
+ * (quota × implementation, still at most the stock available).
+ */
+export interface StepNoise {
+  logProcess: number;
+  survey: number;
+  implementation: number;
+}
+
+/**
  * The closed-loop map G = F − H + S: one year of growth, harvest and stocking.
  *
  * Harvest after reproduction (timing "after", the Schaefer convention):
@@ -62,9 +73,10 @@ export interface ClosedLoop {
   readonly layout: StateLayout;
   /**
    * Advances x[t] to x[t+1]. `out` may be the same array as `x` (updated in place).
-   * Fills `record` with the year's survey, quota, catch and stocking when given.
+   * Fills `record` with the year's survey, quota, catch and stocking when given; `noise`
+   * multiplies production, survey and catch (a stochastic year).
    */
-  step(x: Float64Array, out: Float64Array, record?: StepRecord): void;
+  step(x: Float64Array, out: Float64Array, record?: StepRecord, noise?: StepNoise): void;
   /**
    * The state at the start of the first year from past abundances: `history[0]` = N[0],
    * `history[k]` = N[−k]. Missing history repeats the oldest value given; past spawners are
@@ -78,6 +90,12 @@ export interface ClosedLoop {
    * layout.dimension === 1.
    */
   next(n: number): number;
+  /**
+   * next() with noise on production, survey and catch (see StepNoise); the year's quota
+   * and catch go to `record`. With logProcess 0 and the multipliers 1 it returns exactly
+   * next(n).
+   */
+  nextWith(n: number, logProcess: number, survey: number, implementation: number, record: StepRecord): number;
 }
 
 /** Builds the layout of the state vector for a model and a rule. */
@@ -103,6 +121,7 @@ class ClosedLoopMap implements ClosedLoop {
   private readonly T: number;
   private readonly L: number;
   private readonly growth: GrowthFamily<Params>;
+  private readonly logFactor: ((m: number, p: Params) => number) | null;
   private readonly params: Params;
   private readonly harvest: HarvestRule;
   private readonly stocking: number;
@@ -119,6 +138,7 @@ class ClosedLoopMap implements ClosedLoop {
     this.T = model.delay;
     this.L = rule.surveyLag;
     this.growth = model.growth;
+    this.logFactor = model.growth.logFactor ?? null;
     this.params = model.params;
     this.harvest = rule.harvest;
     this.stocking = rule.stocking;
@@ -128,28 +148,29 @@ class ClosedLoopMap implements ClosedLoop {
     this.maxDecrease = rule.quotaChange?.maxDecrease ?? 0;
   }
 
-  step(x: Float64Array, out: Float64Array, record?: StepRecord): void {
+  step(x: Float64Array, out: Float64Array, record?: StepRecord, noise?: StepNoise): void {
     const { nHistory, bStart, bHistory, quotaIndex } = this.layout;
     const T = this.T;
     const L = this.L;
     const n = x[0]!;
-    const survey = L === 0 ? n : x[L]!;
+    const survey = (L === 0 ? n : x[L]!) * (noise ? noise.survey : 1);
     let quota = this.harvest.quota(survey);
     if (this.capped) quota = capQuota(quota, x[quotaIndex]!, this.maxIncrease, this.maxDecrease);
+    const aim = noise ? quota * noise.implementation : quota;
     let taken: number;
     let next: number;
     let spawners = 0;
     if (this.before) {
-      taken = quota < n ? quota : n;
+      taken = aim < n ? aim : n;
       spawners = n - taken;
       const dens = T === 0 ? spawners : x[bStart + T - 1]!;
-      const p = spawners > 0 ? spawners * this.growth.factor(dens, this.params) : 0;
+      let p = spawners > 0 ? (noise ? this.noisyProduction(spawners, dens, noise.logProcess) : spawners * this.growth.factor(dens, this.params)) : 0;
       next = (p < 0 ? 0 : p) + this.stocking;
     } else {
       const dens = T === 0 ? n : x[T]!;
-      let p = n > 0 ? n * this.growth.factor(dens, this.params) : 0;
+      let p = n > 0 ? (noise ? this.noisyProduction(n, dens, noise.logProcess) : n * this.growth.factor(dens, this.params)) : 0;
       if (p < 0) p = 0;
-      taken = quota < p ? quota : p;
+      taken = aim < p ? aim : p;
       next = p - taken + this.stocking;
     }
     // Shift the delay lines from the far end so that out may alias x.
@@ -174,6 +195,34 @@ class ClosedLoopMap implements ClosedLoop {
     let p = base > 0 ? base * this.growth.factor(base, this.params) : 0;
     if (p < 0) p = 0;
     return (this.before ? p : p - (quota < p ? quota : p)) + this.stocking;
+  }
+
+  /** base · g(dens) · exp(ε), with one exp for exponential families. */
+  private noisyProduction(base: number, dens: number, logProcess: number): number {
+    const lf = this.logFactor;
+    return lf ? base * Math.exp(lf(dens, this.params) + logProcess) : base * this.growth.factor(dens, this.params) * Math.exp(logProcess);
+  }
+
+  nextWith(n: number, logProcess: number, survey: number, implementation: number, record: StepRecord): number {
+    const quota = this.harvest.quota(n * survey);
+    const aim = quota * implementation;
+    let next: number;
+    let taken: number;
+    if (this.before) {
+      taken = aim < n ? aim : n;
+      const base = n - taken;
+      let p = base > 0 ? this.noisyProduction(base, base, logProcess) : 0;
+      if (p < 0) p = 0;
+      next = p + this.stocking;
+    } else {
+      let p = n > 0 ? this.noisyProduction(n, n, logProcess) : 0;
+      if (p < 0) p = 0;
+      taken = aim < p ? aim : p;
+      next = p - taken + this.stocking;
+    }
+    record.quota = quota;
+    record.catch = taken;
+    return next;
   }
 
   initialState(history: readonly number[]): Float64Array {
