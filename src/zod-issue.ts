@@ -59,7 +59,7 @@ export function issueFromZod(
         allowed: first.values.map((v) => String(v)),
       };
     case "unrecognized_keys":
-      return { code: "unknown_field", field: joinPath(field, [first.keys[0] ?? "?"]) };
+      return { code: "unknown_field", field: joinPath(prefix, [...path, first.keys[0] ?? "?"]) };
     default:
       return { code: "constraint_violated", field, constraint: first.message };
   }

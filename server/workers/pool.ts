@@ -1,4 +1,5 @@
 // A worker pool for long analyses (piscina), splitting a regime map by columns.
+import { setMaxListeners } from "node:events";
 import { Piscina } from "piscina";
 import { REGIMES } from "../../src/equilibria/long-run.js";
 import { axisValues, type SweepAxis } from "../../src/equilibria/bifurcation.js";
@@ -10,7 +11,7 @@ import { parseScenario } from "../../src/sim/scenario.js";
 import { projectionBlocks } from "../../src/sim/stochastic-projection.js";
 import { parseRules, ruleOutcome, type RuleOutcome } from "../../src/sim/rule-comparison.js";
 import { parseUncertainty } from "../../src/sim/uncertainty.js";
-import type { ProjectionTask, ProjectionTaskResult, RegimeMapTask, TaskResult } from "./tasks.js";
+import type { BifurcationTask, FitTask, ProjectionTask, ProjectionTaskResult, RegimeMapTask, TaskResult, ValueTaskResult } from "./tasks.js";
 
 export interface AnalysisPool {
   readonly threads: number;
@@ -23,6 +24,8 @@ export interface AnalysisPool {
   projection(req: { scenario: unknown; uncertainty: unknown; rule?: unknown }, signal?: AbortSignal, onProgress?: (done: number, total: number) => void): Promise<{ ok: true; value: StochasticProjection } | { ok: false; issue: Issue }>;
   /** Candidate rules compared on the same draws (see compareRules in src/sim/rule-comparison.ts). */
   compareRules(req: { scenario: unknown; uncertainty: unknown; rules: unknown }, signal?: AbortSignal, onProgress?: (done: number, total: number) => void): Promise<{ ok: true; value: RuleOutcome[] } | { ok: false; issue: Issue }>;
+  /** Runs a fit comparison or a bifurcation diagram on a worker. */
+  run(task: FitTask | BifurcationTask, signal?: AbortSignal): Promise<ValueTaskResult>;
   close(): Promise<void>;
 }
 
@@ -36,6 +39,7 @@ export function createAnalysisPool(threads: number): AnalysisPool {
   return {
     threads,
     async regimeMap(req, signal, onProgress) {
+      if (signal) setMaxListeners(1000, signal);
       const nx = req.x.count;
       // Interleave column blocks so every worker gets a similar mix of easy and hard cells.
       const blocks = Math.max(threads * 16, 1);
@@ -71,6 +75,8 @@ export function createAnalysisPool(threads: number): AnalysisPool {
       return { ok: true, x: { path: req.x.path, values: axisValues(req.x) }, y: { path: req.y.path, values: axisValues(req.y) }, regimes, periods, regimeNames: REGIMES, boundary };
     },
     async projection(req, signal, onProgress) {
+      // One signal is shared by every chunk's task (each adds an abort listener).
+      if (signal) setMaxListeners(1000, signal);
       // Validate here too: a bad request fails before any worker starts, with the field named.
       const scenario = parseScenario(req.scenario);
       if (!scenario.ok) return scenario;
@@ -119,6 +125,7 @@ export function createAnalysisPool(threads: number): AnalysisPool {
       }
       return { ok: true, value: out };
     },
+    run: async (task, signal) => (await piscina.run(task, { signal })) as ValueTaskResult,
     close: () => piscina.destroy(),
   };
 }

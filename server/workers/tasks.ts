@@ -3,7 +3,9 @@
 import { parseModel } from "../../src/models/model-spec.js";
 import { parseRule } from "../../src/policy/rule-spec.js";
 import { regimeMap, type RegimeMapOptions } from "../../src/equilibria/regime-map.js";
-import type { SweepAxis } from "../../src/equilibria/bifurcation.js";
+import { bifurcationDiagram, type BifurcationOptions, type SweepAxis } from "../../src/equilibria/bifurcation.js";
+import { compareModels } from "../../src/fit/compare-models.js";
+import { parseSeriesCsv } from "../../src/fit/series.js";
 import type { Issue } from "../../src/issues.js";
 import { parseScenario } from "../../src/sim/scenario.js";
 import { parseUncertainty } from "../../src/sim/uncertainty.js";
@@ -30,12 +32,47 @@ export interface ProjectionTask {
 
 export type ProjectionTaskResult = { ok: true; parts: ProjectionParts } | { ok: false; issue: Issue };
 
+/** Every model family fitted to a series and ranked (compareModels). */
+export interface FitTask {
+  readonly kind: "fit-compare";
+  readonly csv: string;
+  readonly options: Record<string, unknown>;
+}
+
+/** A bifurcation diagram over one parameter. */
+export interface BifurcationTask {
+  readonly kind: "bifurcation";
+  readonly model: unknown;
+  readonly rule: unknown;
+  readonly axis: SweepAxis;
+  readonly options: BifurcationOptions;
+}
+
+export type ValueTaskResult = { ok: true; value: unknown } | { ok: false; issue: Issue };
+
 export type TaskResult =
   | { ok: true; regimes: Uint8Array; periods: Uint8Array; boundary: { x: number; y: number; from: number; to: number }[]; columns: readonly [number, number] }
   | { ok: false; issue: Issue };
 
-export function runTask(task: RegimeMapTask | ProjectionTask): TaskResult | ProjectionTaskResult {
-  return task.kind === "regime-map" ? runRegimeMap(task) : runProjection(task);
+export function runTask(task: RegimeMapTask | ProjectionTask | FitTask | BifurcationTask): TaskResult | ProjectionTaskResult | ValueTaskResult {
+  switch (task.kind) {
+    case "regime-map":
+      return runRegimeMap(task);
+    case "projection-blocks":
+      return runProjection(task);
+    case "fit-compare": {
+      const series = parseSeriesCsv(task.csv);
+      if (!series.ok) return series;
+      return compareModels(series.value, task.options);
+    }
+    case "bifurcation": {
+      const model = parseModel(task.model);
+      if (!model.ok) return model;
+      const rule = parseRule(task.rule);
+      if (!rule.ok) return rule;
+      return bifurcationDiagram(model.value, rule.value, task.axis, task.options);
+    }
+  }
 }
 
 function runProjection(task: ProjectionTask): ProjectionTaskResult {

@@ -1,0 +1,93 @@
+// The express app, built by a factory so tests can drive it with supertest without a port.
+import { existsSync } from "node:fs";
+import { timingSafeEqual } from "node:crypto";
+import express, { type ErrorRequestHandler, type RequestHandler } from "express";
+import type { AppContext } from "./context.js";
+import { openApiDocument } from "./openapi.js";
+import { PROBLEM_TYPES, sendProblem } from "./problem.js";
+import { exportRoutes } from "./routes-exports.js";
+import { jobRoutes } from "./routes-jobs.js";
+import { resultRoutes } from "./routes-results.js";
+import { seriesRoutes } from "./routes-series.js";
+import { specRoutes } from "./routes-specs.js";
+
+export interface AppOptions extends AppContext {
+  /** When set, every /api request needs `Authorization: Bearer <token>`. */
+  readonly token?: string;
+  /** A folder of built page files to serve at / (the web page), if present. */
+  readonly staticDir?: string;
+}
+
+/** The page's Content-Security-Policy: only our own scripts, styles and API. */
+export const PAGE_CSP = "default-src 'self'; script-src 'self'; style-src 'self'; img-src 'self' data: blob:; connect-src 'self'; object-src 'none'; base-uri 'none'; form-action 'self'; frame-ancestors 'none'";
+
+const securityHeaders: RequestHandler = (_req, res, next) => {
+  res.set({
+    "X-Content-Type-Options": "nosniff",
+    "X-Frame-Options": "DENY",
+    "Referrer-Policy": "no-referrer",
+    "Cross-Origin-Opener-Policy": "same-origin",
+    "Cross-Origin-Resource-Policy": "same-origin",
+    "Content-Security-Policy": PAGE_CSP,
+    "Permissions-Policy": "camera=(), microphone=(), geolocation=()",
+  });
+  next();
+};
+
+function bearer(token: string): RequestHandler {
+  const expected = Buffer.from(token);
+  return (req, res, next) => {
+    const got = Buffer.from((req.get("authorization") ?? "").replace(/^Bearer\s+/i, ""));
+    if (got.length === expected.length && timingSafeEqual(got, expected)) return next();
+    res.set("WWW-Authenticate", 'Bearer realm="yieldloop"');
+    sendProblem(res, { type: PROBLEM_TYPES.unauthorised, title: "Unauthorised", status: 401, detail: "this server needs an API token: send Authorization: Bearer <token>" });
+  };
+}
+
+export function createApp(opts: AppOptions): express.Express {
+  const app = express();
+  app.disable("x-powered-by");
+  app.set("query parser", "simple");
+  app.use(securityHeaders);
+  const api = express.Router();
+  if (opts.token) api.use(bearer(opts.token));
+  api.use(express.json({ limit: opts.limits.jsonBody, type: ["application/json", "application/*+json"] }));
+  api.use(express.text({ limit: opts.limits.csvBody, type: ["text/csv", "text/plain"] }));
+  api.get("/", (_req, res) => {
+    res.json({
+      name: "yieldloop",
+      version: opts.version,
+      links: Object.fromEntries(["series", "models", "rules", "scenarios", "fits", "analyses", "projections", "comparisons"].map((k) => [k, `/api/v1/${k}`])),
+      openapi: "/api/v1/openapi.json",
+    });
+  });
+  const doc = openApiDocument(opts.version);
+  api.get("/openapi.json", (_req, res) => res.json(doc));
+  api.use(seriesRoutes(opts));
+  api.use(specRoutes(opts));
+  api.use(exportRoutes(opts));
+  api.use(resultRoutes(opts));
+  api.use(jobRoutes(opts));
+  api.use((req, res) => sendProblem(res, { type: PROBLEM_TYPES.notFound, title: "Not found", status: 404, detail: `no route ${req.method} ${req.baseUrl}${req.path}` }));
+  app.use("/api/v1", api);
+  if (opts.staticDir && existsSync(opts.staticDir)) app.use(express.static(opts.staticDir, { index: "index.html", maxAge: "1h" }));
+  app.use((req, res) => sendProblem(res, { type: PROBLEM_TYPES.notFound, title: "Not found", status: 404, detail: `nothing at ${req.path}` }));
+  app.use(errors);
+  return app;
+}
+
+// Body-parser failures become 400/413/415 problems; anything else is a 500 without details
+// (the stack goes to the server's log, never to the client).
+const errors: ErrorRequestHandler = (err: { type?: string; status?: number; message?: string; stack?: string }, _req, res, _next) => {
+  if (res.headersSent) return res.end();
+  if (err.type === "entity.parse.failed") return sendProblem(res, { type: PROBLEM_TYPES.malformed, title: "Malformed JSON", status: 400, detail: "the request body is not valid JSON" });
+  if (err.type === "entity.too.large") return sendProblem(res, { type: PROBLEM_TYPES.tooLarge, title: "Body too large", status: 413, detail: "the request body is larger than this server accepts" });
+  if (err.type === "encoding.unsupported" || err.type === "charset.unsupported") {
+    return sendProblem(res, { type: PROBLEM_TYPES.mediaType, title: "Unsupported encoding", status: 415, detail: "send the body as UTF-8" });
+  }
+  if (typeof err.status === "number" && err.status >= 400 && err.status < 500) {
+    return sendProblem(res, { type: "about:blank", title: "Bad request", status: err.status, detail: "the request could not be read" });
+  }
+  process.stderr.write(`internal error: ${err.stack ?? err.message ?? String(err)}\n`);
+  sendProblem(res, { type: PROBLEM_TYPES.internal, title: "Internal error", status: 500, detail: "the server failed to answer this request; it has been logged" });
+};

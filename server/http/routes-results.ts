@@ -1,0 +1,177 @@
+// /api/v1/fits, /analyses, /projections, /comparisons: results with their provenance.
+// Quick analyses (stability, margin) answer 201 at once; long work answers 202 with a job.
+import { Router, type Response } from "express";
+import { stabilityMargin } from "../../src/equilibria/margin.js";
+import { analyseStability } from "../../src/equilibria/stability.js";
+import { parseRule } from "../../src/policy/rule-spec.js";
+import type { Provenance, ResultKind } from "../store/repository.js";
+import type { JobOutcome } from "../jobs/job-runner.js";
+import { core, jsonObject, pageOf, parseWith, sendIssue, type AppContext } from "./context.js";
+import { jsonSafe } from "./json-safe.js";
+import { notFound, sendProblem } from "./problem.js";
+import { contentHash, scenarioFrom, uncertaintyFrom, type ScenarioInput } from "./scenario-input.js";
+import { analysisBodySchema, comparisonBodySchema, fitBodySchema, projectionBodySchema } from "./schemas.js";
+
+const PATHS: Record<ResultKind, string> = { fit: "fits", analysis: "analyses", projection: "projections", comparison: "comparisons" };
+
+export function resultLinks(kind: ResultKind, id: string): Record<string, string> {
+  const self = `/api/v1/${PATHS[kind]}/${id}`;
+  if (kind === "projection") return { self, table: `${self}/table.csv`, risk: `${self}/risk.csv`, tableJson: `${self}/table.json` };
+  if (kind === "comparison") return { self, table: `${self}/table.csv`, tableJson: `${self}/table.json` };
+  return { self };
+}
+
+export function resultRoutes(ctx: AppContext): Router {
+  const r = Router();
+  const provenance = (input: ScenarioInput | null, extra: Partial<Provenance> = {}): Provenance => ({
+    scenarioId: input?.scenarioId ?? null,
+    seriesId: null,
+    dataHash: input ? contentHash(input.spec) : null,
+    programVersion: ctx.version,
+    seed: null,
+    ...extra,
+  });
+  const accepted = (res: Response, kind: string, request: unknown, work: Parameters<AppContext["jobs"]["start"]>[2]) => {
+    const job = ctx.jobs.start(kind, request, work);
+    res.status(202).location(`/api/v1/jobs/${job.id}`).json({ job: { ...job, links: jobLinks(job.id) } });
+  };
+  const scenario = (body: Record<string, unknown>, res: Response): ScenarioInput | undefined => {
+    const s = scenarioFrom(body, ctx.repo);
+    if (s === "not-found") {
+      sendProblem(res, notFound("scenario", String(body.scenarioId)));
+      return undefined;
+    }
+    return core(s, res);
+  };
+  const outcome = (kind: ResultKind, result: unknown, p: Provenance): JobOutcome => ({ ok: true, kind, result: jsonSafe(result), provenance: p });
+
+  r.post("/fits", (req, res) => {
+    const body = jsonObject(req, res);
+    if (!body) return;
+    const b = parseWith(fitBodySchema, body, res);
+    if (!b) return;
+    const series = ctx.repo.getSeries(b.seriesId);
+    if (!series) return sendProblem(res, notFound("series", b.seriesId));
+    const csv = ctx.repo.seriesCsv(b.seriesId)!;
+    const { seriesId: _s, ...options } = b;
+    accepted(res, "fit", b, async (signal) => {
+      const r2 = await ctx.pool.run({ kind: "fit-compare", csv, options }, signal);
+      if (!r2.ok) return r2;
+      return outcome("fit", r2.value, provenance(null, { seriesId: series.id, dataHash: series.contentHash, seed: b.seed ?? 1 }));
+    });
+  });
+
+  r.post("/analyses", (req, res) => {
+    const body = jsonObject(req, res);
+    if (!body) return;
+    // The scenario first, so its issues name the exact field; then the rest of the body.
+    const input = scenario(body, res);
+    if (!input) return;
+    const { scenario: _sc, ...rest } = body;
+    const b = parseWith(analysisBodySchema, rest, res);
+    if (!b) return;
+    const { model, rule } = input.scenario;
+    const request = { ...b, scenario: input.spec };
+    if (b.kind === "stability" || b.kind === "margin") {
+      let result: unknown;
+      if (b.kind === "stability") result = analyseStability(input.scenario.loop);
+      else {
+        const m = stabilityMargin(model, rule, b.parameter);
+        if (!m.ok) return sendIssue(res, m.issue);
+        result = m.value;
+      }
+      const rec = ctx.repo.insertResult("analysis", request, jsonSafe(result), provenance(input));
+      res.status(201).location(`/api/v1/analyses/${rec.id}`).json({ ...rec, links: resultLinks("analysis", rec.id) });
+      return;
+    }
+    const specModel = input.spec.model;
+    const specRule = input.spec.rule;
+    if (b.kind === "bifurcation") {
+      accepted(res, "bifurcation", request, async (signal) => {
+        const d = await ctx.pool.run({ kind: "bifurcation", model: specModel, rule: specRule, axis: b.axis, options: b.options ?? {} }, signal);
+        return d.ok ? outcome("analysis", d.value, provenance(input)) : d;
+      });
+      return;
+    }
+    accepted(res, "regime-map", request, async (signal, progress) => {
+      const m = await ctx.pool.regimeMap({ model: specModel, rule: specRule, x: b.x, y: b.y, options: b.options ?? {} }, signal, (d, t) => progress(d / t));
+      if (!m.ok) return m;
+      const { ok: _ok, ...map } = m;
+      return outcome("analysis", map, provenance(input));
+    });
+  });
+
+  r.post("/projections", (req, res) => {
+    const body = jsonObject(req, res);
+    if (!body) return;
+    const input = scenario(body, res);
+    if (!input) return;
+    const u = core(uncertaintyFrom(body, input), res);
+    if (!u) return;
+    const { scenario: _sc, uncertainty: _u, ...rest } = body;
+    if (!parseWith(projectionBodySchema, rest, res)) return;
+    const request = { scenarioId: input.scenarioId, scenario: input.spec, uncertainty: u.raw };
+    accepted(res, "projection", request, async (signal, progress) => {
+      const p = await ctx.pool.projection({ scenario: scenarioOnly(input.spec), uncertainty: u.raw }, signal, (d, t) => progress(d / t));
+      if (!p.ok) return p;
+      return outcome("projection", p.value, { ...provenance(input), dataHash: contentHash(request), seed: u.value.seed });
+    });
+  });
+
+  r.post("/comparisons", (req, res) => {
+    const body = jsonObject(req, res);
+    if (!body) return;
+    const input = scenario(body, res);
+    if (!input) return;
+    const u = core(uncertaintyFrom(body, input), res);
+    if (!u) return;
+    let rules: unknown[];
+    if (Array.isArray(body.ruleIds)) {
+      rules = [];
+      for (const id of body.ruleIds) {
+        const rec = typeof id === "string" ? ctx.repo.getSpec("rule", id) : null;
+        if (!rec) return sendProblem(res, notFound("rule", String(id)));
+        rules.push(rec.spec);
+      }
+    } else if (Array.isArray(body.rules)) {
+      rules = body.rules;
+      for (let i = 0; i < rules.length; i++) if (core(parseRule(rules[i], `rules[${i}]`), res) === undefined) return;
+    } else return sendIssue(res, { code: "missing_field", field: "rules" });
+    const { scenario: _sc, uncertainty: _u, ...rest } = body;
+    if (!parseWith(comparisonBodySchema, rest, res)) return;
+    const request = { scenarioId: input.scenarioId, scenario: input.spec, uncertainty: u.raw, rules };
+    accepted(res, "comparison", request, async (signal, progress) => {
+      const c = await ctx.pool.compareRules({ scenario: scenarioOnly(input.spec), uncertainty: u.raw, rules }, signal, (d, t) => progress(d / t));
+      if (!c.ok) return c;
+      return outcome("comparison", c.value, { ...provenance(input), dataHash: contentHash(request), seed: u.value.seed });
+    });
+  });
+
+  for (const kind of ["fit", "analysis", "projection", "comparison"] as const) {
+    const path = PATHS[kind];
+    r.get(`/${path}`, (req, res) => {
+      const page = pageOf(req, res);
+      if (page) res.json({ items: ctx.repo.listResults(kind, page).map((x) => ({ ...x, links: resultLinks(kind, x.id) })), ...page });
+    });
+    r.get(`/${path}/:id`, (req, res) => {
+      const rec = ctx.repo.getResult(kind, req.params.id);
+      if (!rec) return sendProblem(res, notFound(kind, req.params.id));
+      res.json({ ...rec, links: resultLinks(kind, rec.id) });
+    });
+    r.delete(`/${path}/:id`, (req, res) => {
+      if (!ctx.repo.deleteResult(kind, req.params.id)) return sendProblem(res, notFound(kind, req.params.id));
+      res.status(204).end();
+    });
+  }
+  return r;
+}
+
+/** The scenario spec without its uncertainty (what parseScenario takes). */
+function scenarioOnly(spec: Record<string, unknown>): Record<string, unknown> {
+  const { uncertainty: _u, ...rest } = spec;
+  return rest;
+}
+
+export function jobLinks(id: string) {
+  return { self: `/api/v1/jobs/${id}`, events: `/api/v1/jobs/${id}/events` };
+}
