@@ -6,6 +6,7 @@ import { juryBench } from "./jury.bench.js";
 import { regimeMapBench } from "./regime-map.bench.js";
 import { fitBench } from "./fit.bench.js";
 import { projectionBench } from "./projection.bench.js";
+import { loadBench } from "./load.bench.js";
 
 function must<T>(r: { ok: true; value: T } | { ok: false; issue: unknown }): T {
   if (!r.ok) throw new Error(JSON.stringify(r.issue));
@@ -32,6 +33,7 @@ const benches: Record<string, () => void | Promise<void>> = {
   "regime-map": regimeMapBench,
   fit: fitBench,
   projection: projectionBench,
+  load: loadBench,
 };
 const only = process.argv.slice(2);
 for (const [name, run] of Object.entries(benches)) if (only.length === 0 || only.includes(name)) await run();

@@ -2,9 +2,7 @@
 // normalised to plain JSON for storage.
 import { createHash } from "node:crypto";
 import type { Model } from "../../src/models/model-spec.js";
-import { parseModel } from "../../src/models/model-spec.js";
 import type { Rule } from "../../src/policy/rule-spec.js";
-import { parseRule } from "../../src/policy/rule-spec.js";
 import { fail, ok, type Result } from "../../src/result.js";
 import { parseScenario, type Scenario } from "../../src/sim/scenario.js";
 import { parseUncertainty, type Uncertainty } from "../../src/sim/uncertainty.js";
@@ -34,10 +32,6 @@ export function parseScenarioSpec(input: unknown, prefix = "scenario"): Result<{
     return fail({ code: "wrong_type", field: prefix, expected: "object", received: Array.isArray(input) ? "array" : input === null ? "null" : typeof input });
   }
   const { uncertainty, ...rest } = input as Record<string, unknown>;
-  const model = parseModel(rest.model, `${prefix}.model`);
-  if (!model.ok) return model;
-  const rule = parseRule(rest.rule, `${prefix}.rule`);
-  if (!rule.ok) return rule;
   const sc = parseScenario(rest);
   if (!sc.ok) return fail("field" in sc.issue ? ({ ...sc.issue, field: `${prefix}.${sc.issue.field}` } as typeof sc.issue) : sc.issue);
   if (uncertainty !== undefined) {

@@ -39,6 +39,14 @@ export const modelSpecSchema = z.discriminatedUnion(
   ],
 );
 
+// Building a zod schema costs far more than using one: one per family, built on first use.
+const schemas = new Map<FamilyId, ReturnType<typeof familySchema>>();
+function cachedSchema(id: FamilyId): ReturnType<typeof familySchema> {
+  let s = schemas.get(id);
+  if (!s) schemas.set(id, (s = familySchema(id)));
+  return s;
+}
+
 /**
  * Validates a model spec from untrusted input and resolves its family.
  * Fails with an issue that names the field (`model.params.K`) and its allowed range.
@@ -54,7 +62,7 @@ export function parseModel(input: unknown, prefix = "model"): Result<Model> {
   }
   const id = family as FamilyId;
   const growth = families[id];
-  const parsed = familySchema(id).safeParse(input);
+  const parsed = cachedSchema(id).safeParse(input);
   if (!parsed.success) {
     return fail(
       issueFromZod(parsed.error, input, (path) =>

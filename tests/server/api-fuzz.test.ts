@@ -44,7 +44,7 @@ describe("fuzzing the series and scenario endpoints", () => {
       }),
       { numRuns: 1500, seed: 20261202 },
     );
-  });
+  }, 120_000);
 
   it("scenario bodies: never a 5xx", async () => {
     await fc.assert(
@@ -55,7 +55,7 @@ describe("fuzzing the series and scenario endpoints", () => {
       }),
       { numRuns: 1500, seed: 20261203 },
     );
-  });
+  }, 120_000);
 
   it("raw bodies of any bytes and types: never a 5xx", async () => {
     await fc.assert(
@@ -65,7 +65,7 @@ describe("fuzzing the series and scenario endpoints", () => {
       }),
       { numRuns: 500, seed: 20261204 },
     );
-  });
+  }, 120_000);
 
   it("nothing invalid was stored", () => {
     const scenarios = rt.db.prepare("SELECT spec FROM specs WHERE kind = 'scenario'").all() as { spec: string }[];

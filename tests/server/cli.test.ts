@@ -12,7 +12,8 @@ const demo = (p: string) => fileURLToPath(new URL(`../../data-demo/${p}`, import
 const run = (...args: string[]) => spawnSync(process.execPath, [bin, ...args], { encoding: "utf8", env: { ...process.env, YIELDLOOP_TOKEN: "" } });
 const tmp = mkdtempSync(join(tmpdir(), "yieldloop-cli-"));
 
-describe("yieldloop command line", () => {
+// Each case starts one or more real processes, so each gets 60 s on a loaded machine.
+describe("yieldloop command line", { timeout: 60_000 }, () => {
   it("check: a verdict in plain words, the margin and the caution (exit 0)", () => {
     const r = run("check", demo("scenarios/skerra-deer.json"));
     expect(r.status).toBe(0);
