@@ -91,3 +91,73 @@ export function comparisonTable(rows: readonly ComparisonRow[]): Table {
   });
   return { header, rows: out };
 }
+
+interface FitRow {
+  readonly family: string;
+  readonly delay: number;
+  readonly aicc: number;
+  readonly deltaAicc: number;
+  readonly weight: number;
+  readonly estimates: Record<string, number>;
+  readonly intervals?: Record<string, { lower: number; upper: number } | null>;
+  readonly management?: { verdictLabel: string | null; msy: number | null };
+  readonly identifiability?: { trustworthy: boolean };
+}
+
+/** One row per fitted model, best first, with the growth rate and K and their intervals. */
+export function fitTable(result: { fits: readonly FitRow[] }): Table {
+  const header = ["model", "AICc", "delta AICc", "Akaike weight", "r or R0", "r or R0 lower 95%", "r or R0 upper 95%", `K (${UNIT})`, "K lower 95%", "K upper 95%", `MSY (${UNIT} per year)`, "unharvested verdict", "trustworthy"];
+  const rows = result.fits.map((f) => {
+    const g = f.estimates.r !== undefined ? "r" : "R0";
+    return [
+      f.delay ? `${f.family} (delay ${f.delay})` : f.family,
+      f.aicc,
+      f.deltaAicc,
+      f.weight,
+      f.estimates[g] ?? null,
+      f.intervals?.[g]?.lower ?? null,
+      f.intervals?.[g]?.upper ?? null,
+      f.estimates.K ?? null,
+      f.intervals?.K?.lower ?? null,
+      f.intervals?.K?.upper ?? null,
+      f.management?.msy ?? null,
+      f.management?.verdictLabel ?? null,
+      f.identifiability ? (f.identifiability.trustworthy ? "yes" : "no") : null,
+    ];
+  });
+  return { header, rows };
+}
+
+/** The table of an analysis: equilibria (stability), both sides (margin), values (bifurcation) or cells (regime map). */
+export function analysisTable(result: Record<string, unknown>): Table {
+  if (Array.isArray(result.equilibria)) {
+    const eq = result.equilibria as { equilibrium: { abundance: number }; verdict: { label: string; dominantModulus: number; returnTime: number | null; period: number | null } }[];
+    return {
+      header: [`equilibrium (${UNIT})`, "verdict", "dominant eigenvalue modulus", "return time (years)", "oscillation period (years)", "operating"],
+      rows: eq.map((e, i) => [e.equilibrium.abundance, e.verdict.label, e.verdict.dominantModulus, e.verdict.returnTime, e.verdict.period, i === result.operating ? "yes" : "no"]),
+    };
+  }
+  if (typeof result.parameter === "string" && "increase" in result) {
+    const m = result as { parameter: string; current: number; increase: Record<string, unknown>; decrease: Record<string, unknown> };
+    return {
+      header: ["parameter", "direction", "current value", "boundary", "kind past the boundary", "margin", "searched to"],
+      rows: (["increase", "decrease"] as const).map((d) => [m.parameter, d, m.current, m[d].boundary as number | null, m[d].kind as string | null, m[d].margin as number | null, m[d].searchedTo as number]),
+    };
+  }
+  if (Array.isArray(result.values) && Array.isArray(result.regimes)) {
+    const b = result as { parameter: string; values: number[]; regimes: string[]; periods: (number | null)[]; equilibrium: (number | null)[]; stability: (number | null)[] };
+    return {
+      header: [b.parameter, "regime", "period (years)", `largest equilibrium (${UNIT})`, "Jury verdict (1 stable, 0 marginal, -1 unstable)"],
+      rows: b.values.map((v, i) => [v, b.regimes[i]!, b.periods[i] ?? null, b.equilibrium[i] ?? null, b.stability[i] ?? null]),
+    };
+  }
+  const m = result as { x: { path: string; values: number[] }; y: { path: string; values: number[] }; regimes: number[]; periods: number[]; regimeNames: string[] };
+  const rows: Cell[][] = [];
+  for (let j = 0; j < m.y.values.length; j++) {
+    for (let i = 0; i < m.x.values.length; i++) {
+      const k = j * m.x.values.length + i;
+      rows.push([m.x.values[i]!, m.y.values[j]!, m.regimeNames[m.regimes[k]!]!, m.periods[k]! || null]);
+    }
+  }
+  return { header: [m.x.path, m.y.path, "regime", "period (years)"], rows };
+}

@@ -8,7 +8,7 @@ import { MARGIN_PARAMETER } from "../../src/sim/rule-comparison.js";
 import type { StochasticProjection } from "../../src/sim/risk-metrics.js";
 import { toCsv } from "../export/csv.js";
 import { reportHtml } from "../export/report.js";
-import { comparisonTable, projectionTable, riskTable, type Table } from "../export/tables.js";
+import { analysisTable, comparisonTable, fitTable, projectionTable, riskTable, type Table } from "../export/tables.js";
 import type { ResultKind } from "../store/repository.js";
 import { core, parseWith, type AppContext } from "./context.js";
 import { notFound, sendProblem } from "./problem.js";
@@ -42,6 +42,14 @@ export function exportRoutes(ctx: AppContext): Router {
     r.get(`/projections/:id/risk.${format}`, (req, res) => {
       const rec = get("projection", req.params.id, res);
       if (rec) sendTable(res, riskTable(rec.result as StochasticProjection), format, `risk-${rec.id}`);
+    });
+    r.get(`/fits/:id/table.${format}`, (req, res) => {
+      const rec = get("fit", req.params.id, res);
+      if (rec) sendTable(res, fitTable(rec.result as Parameters<typeof fitTable>[0]), format, `fit-${rec.id}`);
+    });
+    r.get(`/analyses/:id/table.${format}`, (req, res) => {
+      const rec = get("analysis", req.params.id, res);
+      if (rec) sendTable(res, analysisTable(rec.result as Record<string, unknown>), format, `analysis-${rec.id}`);
     });
     r.get(`/comparisons/:id/table.${format}`, (req, res) => {
       const rec = get("comparison", req.params.id, res);

@@ -17,8 +17,7 @@ const PATHS: Record<ResultKind, string> = { fit: "fits", analysis: "analyses", p
 export function resultLinks(kind: ResultKind, id: string): Record<string, string> {
   const self = `/api/v1/${PATHS[kind]}/${id}`;
   if (kind === "projection") return { self, table: `${self}/table.csv`, risk: `${self}/risk.csv`, tableJson: `${self}/table.json` };
-  if (kind === "comparison") return { self, table: `${self}/table.csv`, tableJson: `${self}/table.json` };
-  return { self };
+  return { self, table: `${self}/table.csv`, tableJson: `${self}/table.json` };
 }
 
 export function resultRoutes(ctx: AppContext): Router {
@@ -79,6 +78,10 @@ export function resultRoutes(ctx: AppContext): Router {
         const m = stabilityMargin(model, rule, b.parameter);
         if (!m.ok) return sendIssue(res, m.issue);
         result = m.value;
+      }
+      if (b.store === false) {
+        res.status(200).json({ kind: "analysis", request, result: jsonSafe(result), stored: false });
+        return;
       }
       const rec = ctx.repo.insertResult("analysis", request, jsonSafe(result), provenance(input));
       res.status(201).location(`/api/v1/analyses/${rec.id}`).json({ ...rec, links: resultLinks("analysis", rec.id) });

@@ -49,9 +49,11 @@ const longRunOptions = z
   .strictObject({ burnIn: z.int().min(0).max(100000).optional(), observe: z.int().min(8).max(4096).optional(), start: z.array(z.number().min(0)).min(1).max(101).optional() })
   .optional();
 
+const preview = z.boolean().optional().describe("false: answer 200 without storing (a preview while a slider moves)");
+
 export const analysisBodySchema = z.discriminatedUnion("kind", [
-  z.strictObject({ kind: z.literal("stability"), ...scenarioRef }),
-  z.strictObject({ kind: z.literal("margin"), ...scenarioRef, parameter: z.string().describe("e.g. rule.rate, rule.surveyLag, model.params.r") }),
+  z.strictObject({ kind: z.literal("stability"), ...scenarioRef, store: preview }),
+  z.strictObject({ kind: z.literal("margin"), ...scenarioRef, parameter: z.string().describe("e.g. rule.rate, rule.surveyLag, model.params.r"), store: preview }),
   z.strictObject({ kind: z.literal("bifurcation"), ...scenarioRef, axis, options: longRunOptions }),
   z.strictObject({ kind: z.literal("regime-map"), ...scenarioRef, x: axis, y: axis, options: longRunOptions }),
 ]);

@@ -48,6 +48,15 @@ export interface SeriesFit {
     readonly verdictLabel: string | null;
   };
   readonly identifiability: { readonly trustworthy: boolean; readonly problems: IdentifiabilityProblem[] };
+  /**
+   * Approximate 95% intervals for every estimate from the Hessian: x ± 1.96·se on the
+   * optimiser's free scale (log or logit), carried back to the natural scale, so they stay
+   * inside each parameter's range; null where the standard error is not available. Cheaper
+   * and rougher than the profile intervals below.
+   * Source: the Wald interval on a transformed scale, e.g. Bolker, B. M. (2008). Ecological
+   * Models and Data in R. Princeton University Press, §6.5 (from memory).
+   */
+  readonly intervals: Record<string, { readonly lower: number; readonly upper: number } | null>;
   /** 95% profile-likelihood intervals (profile-likelihood.ts) for the parameters asked for. */
   readonly profiles: ProfileInterval[];
   /** The optimum in the optimiser's free coordinates (to warm-start related fits). */
@@ -111,6 +120,18 @@ export function summarise(
   const cov = { ...covFree, se: covFree.se.map((s, i) => (s === null ? null : Math.abs(slopes[i]!) * s)) };
   const standardErrors: Record<string, number | null> = {};
   p.names.forEach((n, i) => (standardErrors[n] = cov.se[i]!));
+  const intervals: SeriesFit["intervals"] = {};
+  p.names.forEach((n, i) => {
+    const se = covFree.se[i];
+    const t = p.transforms[i]!;
+    const scale = n === "A" ? estimates.K! : 1;
+    if (se === null || se === undefined || !Number.isFinite(se)) intervals[n] = null;
+    else {
+      const a = t.fromFree(free[i]! - 1.96 * se) * scale;
+      const b = t.fromFree(free[i]! + 1.96 * se) * scale;
+      intervals[n] = Number.isFinite(a) && Number.isFinite(b) ? { lower: Math.min(a, b), upper: Math.max(a, b) } : null;
+    }
+  });
   const atBound = p.names.filter((n, i) => p.transforms[i]!.atBound(values[i]!));
   const k = p.estimated;
   const n = p.observations;
@@ -152,6 +173,7 @@ export function summarise(
     q: ev.q,
     sigma: ev.sigma,
     standardErrors,
+    intervals,
     correlation: { names: p.names, matrix: cov.correlation },
     negLogLikelihood: ev.nll,
     parameters: k,

@@ -26,4 +26,23 @@ describe("US census 1790–1940: discrete logistic against scipy.optimize", () =
     expectClose(fit.sigma!, reference.sigma, 1e-5, "σ");
     expect(fit.convergence.converged).toBe(true);
   });
+
+  it("has the standard errors of the Gauss–Newton covariance s²(JᵀJ)⁻¹ (scipy Jacobian), to 2%", () => {
+    // Ours come from a numerical Hessian of the concentrated likelihood on the free scale,
+    // carried to the natural scale by the delta method; scipy's from the Jacobian at its optimum.
+    for (const name of ["r", "K", "N0"] as const) {
+      expectClose(fit.standardErrors[name]! / reference.standardErrors[name], 1, 0.02, `se(${name})`);
+    }
+  });
+
+  it("gives approximate 95% intervals that contain the estimate and span about ±1.96 se", () => {
+    for (const name of ["r", "K", "N0"] as const) {
+      const ci = fit.intervals[name]!;
+      const est = fit.estimates[name]!;
+      expect(ci.lower).toBeLessThan(est);
+      expect(ci.upper).toBeGreaterThan(est);
+      // Well-determined here, so the width is close to the Wald width 2·1.96·se (within 5%).
+      expectClose((ci.upper - ci.lower) / (2 * 1.96 * reference.standardErrors[name]), 1, 0.05, `width(${name})`);
+    }
+  });
 });

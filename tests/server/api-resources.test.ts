@@ -45,6 +45,12 @@ describe("series", () => {
     const bh = fit.body.result.fits.find((f: { family: string }) => f.family === "beverton-holt");
     expect(Math.abs(bh.estimates.K / 2400 - 1)).toBeLessThan(0.05);
     expect((await api.get("/api/v1/fits")).body.items).toHaveLength(1);
+    const table = await api.get(`/api/v1/fits/${fit.body.id}/table.csv`);
+    const [head, first] = table.text.split("\r\n");
+    expect(head).toBe("model,AICc,delta AICc,Akaike weight,r or R0,r or R0 lower 95%,r or R0 upper 95%,K (stock units),K lower 95%,K upper 95%,MSY (stock units per year),unharvested verdict,trustworthy");
+    const cells = first!.split(",");
+    expect(Number(cells[8])).toBeLessThan(Number(cells[7]));
+    expect(Number(cells[9])).toBeGreaterThan(Number(cells[7]));
   });
 });
 
@@ -81,6 +87,14 @@ describe("analyses, projections and comparisons", () => {
     expect(m.body.result.parameter).toBe("rule.maxRate");
     expect(m.body.scenarioId).toBeNull();
     expect((await api.get(`/api/v1/analyses/${m.body.id}`)).body.result).toEqual(m.body.result);
+    const t = await api.get(`/api/v1/analyses/${s.body.id}/table.csv`);
+    expect(t.text.split("\r\n")[0]).toBe("equilibrium (stock units),verdict,dominant eigenvalue modulus,return time (years),oscillation period (years),operating");
+    // A preview (a slider moving) answers 200 and stores nothing.
+    const before = (await api.get("/api/v1/analyses")).body.items.length;
+    const p = await api.post("/api/v1/analyses").send({ kind: "stability", scenarioId, store: false });
+    expect(p.status).toBe(200);
+    expect(p.body.result).toEqual(s.body.result);
+    expect((await api.get("/api/v1/analyses")).body.items.length).toBe(before);
   });
   it("bifurcation diagrams and regime maps run as jobs", async () => {
     const b = await api.post("/api/v1/analyses").send({ kind: "bifurcation", scenarioId, axis: { path: "model.params.r", from: 0.5, to: 3, count: 40 } });
