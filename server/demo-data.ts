@@ -43,7 +43,9 @@ export function loadDemo(repo: Repository, dir = DEMO_DIR): { series: number; sc
     if (d.series) {
       const csv = readFileSync(join(dir, d.series), "utf8");
       const hash = createHash("sha256").update(csv).digest("hex");
-      const name = d.series.split("/")[0]!;
+      // Named after the stock (the title up to its colon), so the page can pair a demo's
+      // series with its scenario ("Tarn Vell perch" and "Tarn Vell perch: …").
+      const name = d.title.split(":")[0]!;
       if (!repo.seriesIdByHash(hash, name)) {
         const s = parseSeriesCsv(csv);
         if (!s.ok) throw new Error(`demo series ${d.series}: ${describeIssue(s.issue)}`);

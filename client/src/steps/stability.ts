@@ -1,0 +1,317 @@
+// Step 3: the chosen model under a harvest rule set with sliders: equilibria and their
+// verdict, eigenvalues against the unit circle, the stability margin, a bifurcation diagram
+// and a regime map. Slider moves redraw from a preview analysis (not stored).
+import { getJson, postJson, type JobView } from "../api.js";
+import { bifurcationChart, eigenChart, regimeChart } from "../charts.js";
+import { changed, onChange, scenarioSpec, state, type RuleSpec } from "../state.js";
+import { el, errorBox, fmt, runJob, setStatus, show, table } from "../ui.js";
+
+interface Stability {
+  equilibria: { equilibrium: { abundance: number }; eigenvalues: { re: number; im: number }[]; verdict: { kind: string; label: string; meaning: string; dominantModulus: number; returnTime: number | null; period: number | null } }[];
+  operating: number | null;
+  noPositiveEquilibrium: boolean;
+}
+interface Margin {
+  parameter: string;
+  current: number;
+  stableNow: boolean;
+  increase: { boundary: number | null; kind: string | null; margin: number | null; searchedTo: number };
+  decrease: { boundary: number | null; kind: string | null; margin: number | null; searchedTo: number };
+}
+
+const KINDS = ["no-harvest", "constant-catch", "constant-rate", "constant-escapement", "threshold"];
+const SETTINGS: Record<string, string[]> = {
+  "no-harvest": [],
+  "constant-catch": ["quota"],
+  "constant-rate": ["rate"],
+  "constant-escapement": ["escapement"],
+  threshold: ["lowerTrigger", "upperTrigger", "maxRate"],
+};
+const MAIN: Record<string, string> = { "no-harvest": "model.params.K", "constant-catch": "rule.quota", "constant-rate": "rule.rate", "constant-escapement": "rule.escapement", threshold: "rule.maxRate" };
+
+/** A slider's range for a setting, from the model's K. */
+function range(name: string, K: number): { min: number; max: number; step: number } {
+  if (name === "rate" || name === "maxRate") return { min: 0, max: 0.95, step: 0.005 };
+  if (name === "quota") return { min: 0, max: Math.round(K * 0.6), step: Math.max(K / 1000, 0.001) };
+  return { min: 0, max: Math.round(K * 1.5), step: Math.max(K / 1000, 0.001) };
+}
+
+/** A sweep's default range for a parameter path. */
+function sweepRange(path: string, current: number, K: number): [number, number] {
+  if (path.endsWith(".rate") || path.endsWith(".maxRate")) return [0, 0.9];
+  if (path.endsWith(".r")) return [0.05, Math.max(3, 2 * current)];
+  if (path.endsWith(".R0")) return [1.05, Math.max(6, 2 * current)];
+  if (path.endsWith(".quota")) return [0, 0.6 * K];
+  if (path.endsWith(".K")) return [0.2 * K, 3 * K];
+  return [0, Math.max(1.5 * K, 2 * current)];
+}
+
+const defaults = (kind: string, K: number): RuleSpec => {
+  switch (kind) {
+    case "constant-catch":
+      return { kind, quota: Math.round(0.1 * K) };
+    case "constant-rate":
+      return { kind, rate: 0.2 };
+    case "constant-escapement":
+      return { kind, escapement: Math.round(0.5 * K) };
+    case "threshold":
+      return { kind, lowerTrigger: Math.round(0.2 * K), upperTrigger: Math.round(0.5 * K), maxRate: 0.3 };
+    default:
+      return { kind };
+  }
+};
+
+export function stabilityStep(root: HTMLElement): void {
+  const modelBox = el("fieldset", { id: "model-box" });
+  const ruleBox = el("fieldset", { id: "rule-box" });
+  const verdict = el("div", { id: "verdict", "aria-live": "polite" });
+  const eqTable = el("div", { id: "equilibria" });
+  const eigen = el("div", { class: "chart square" });
+  const marginParam = el("select", { id: "margin-parameter", onchange: () => void margin() });
+  const marginOut = el("p", { id: "margin", "aria-live": "polite" });
+  const timing = el("p", { class: "timing", id: "update-time" });
+  const keep = el("button", { type: "button", class: "secondary", id: "keep-analysis", onclick: () => void keepAnalysis() }, "Keep this analysis for the report");
+  const bifArea = el("div", {});
+  const mapArea = el("div", {});
+  const needModel = el("p", { class: "note" }, "Fit a model in step 2, or open a demo in step 1.");
+
+  let busy = false;
+  let pending = false;
+  let marginTimer: ReturnType<typeof setTimeout> | undefined;
+
+  const K = () => state.model?.params.K ?? 1000;
+
+  function paths(): string[] {
+    const m = state.model;
+    if (!m) return [];
+    return [...Object.keys(m.params).map((p) => `model.params.${p}`), ...SETTINGS[state.rule.kind]!.map((s) => `rule.${s}`), "rule.surveyLag"];
+  }
+
+  function renderModel(): void {
+    const m = state.model;
+    if (!m) return show(modelBox);
+    show(
+      modelBox,
+      el("legend", {}, `Model: ${m.family}${m.delay ? `, delay ${m.delay}` : ""}`),
+      ...Object.entries(m.params).map(([k, v]) =>
+        el("label", { class: "field" }, `${k} `, el("input", { type: "number", value: String(Number(v.toPrecision(6))), step: "any", "data-param": k, oninput: (e: Event) => {
+          const x = Number((e.target as HTMLInputElement).value);
+          if (Number.isFinite(x)) {
+            m.params[k] = x;
+            schedule();
+          }
+        } })),
+      ),
+    );
+  }
+
+  function renderRule(): void {
+    const r = state.rule;
+    const kind = el("select", { id: "rule-kind", onchange: () => {
+      state.rule = { ...defaults(kind.value, K()), surveyLag: r.surveyLag ?? 0, timing: r.timing ?? "after" };
+      renderRule();
+      fillMarginParams();
+      schedule();
+    } }, ...KINDS.map((k) => el("option", { value: k, selected: k === r.kind }, k)));
+    const sliders = SETTINGS[r.kind]!.map((name) => {
+      const { min, max, step } = range(name, K());
+      const value = Number(r[name] ?? min);
+      const out = el("output", { for: `rule-${name}`, id: `rule-${name}-value` }, fmt(value));
+      const input = el("input", { type: "range", id: `rule-${name}`, min, max: Math.max(max, value), step, value: String(value), oninput: () => {
+        state.rule = { ...state.rule, [name]: Number(input.value) };
+        out.textContent = fmt(Number(input.value));
+        schedule();
+      } });
+      return el("div", { class: "slider" }, el("label", { for: `rule-${name}` }, name), input, out);
+    });
+    const lagOut = el("output", { for: "rule-surveyLag", id: "rule-surveyLag-value" }, String(r.surveyLag ?? 0));
+    const lag = el("input", { type: "range", id: "rule-surveyLag", min: 0, max: 5, step: 1, value: String(r.surveyLag ?? 0), oninput: () => {
+      state.rule = { ...state.rule, surveyLag: Number(lag.value) };
+      lagOut.textContent = lag.value;
+      schedule();
+    } });
+    const when = el("select", { id: "rule-timing", onchange: () => {
+      state.rule = { ...state.rule, timing: when.value };
+      schedule();
+    } }, el("option", { value: "after", selected: r.timing !== "before" }, "after reproduction"), el("option", { value: "before", selected: r.timing === "before" }, "before reproduction"));
+    show(
+      ruleBox,
+      el("legend", {}, "Harvest rule"),
+      el("label", { for: "rule-kind" }, "Rule "),
+      kind,
+      ...sliders,
+      el("div", { class: "slider" }, el("label", { for: "rule-surveyLag" }, "survey lag (years)"), lag, lagOut),
+      el("label", { for: "rule-timing" }, "Catch taken "),
+      when,
+    );
+  }
+
+  function fillMarginParams(): void {
+    const main = MAIN[state.rule.kind]!;
+    show(marginParam, ...paths().map((p) => el("option", { value: p, selected: p === main }, p)));
+  }
+
+  /** Sends one preview analysis at a time; a move made meanwhile is sent when it returns. */
+  function schedule(): void {
+    if (busy) {
+      pending = true;
+      return;
+    }
+    void update();
+    clearTimeout(marginTimer);
+    marginTimer = setTimeout(() => void margin(), 250);
+  }
+
+  async function update(): Promise<void> {
+    const spec = scenarioSpec();
+    if (!spec) return;
+    busy = true;
+    const t0 = performance.now();
+    try {
+      const r = await postJson<{ result: Stability }>("/api/v1/analyses", { kind: "stability", scenario: spec, store: false });
+      render(r.result);
+      const ms = performance.now() - t0;
+      timing.textContent = `updated in ${ms.toFixed(0)} ms`;
+      timing.dataset.ms = ms.toFixed(1);
+    } catch (e) {
+      show(verdict, errorBox(e));
+    } finally {
+      busy = false;
+      if (pending) {
+        pending = false;
+        schedule();
+      }
+    }
+  }
+
+  function render(s: Stability): void {
+    const op = s.operating === null ? null : s.equilibria[s.operating]!;
+    if (!op) show(verdict, el("p", { class: "verdict bad" }, "No positive equilibrium: under this rule the stock collapses."));
+    else {
+      const good = op.verdict.kind.startsWith("stable");
+      show(verdict, el("p", { class: `verdict ${good ? "good" : "bad"}`, "data-kind": op.verdict.kind }, `${op.verdict.label} at N* = ${fmt(op.equilibrium.abundance)}`), el("p", {}, op.verdict.meaning));
+    }
+    show(
+      eqTable,
+      table(
+        "Equilibria of the closed loop",
+        ["equilibrium", "verdict", "|λ| dominant", "return time (y)", "period (y)"],
+        s.equilibria.map((e) => [e.equilibrium.abundance, e.verdict.label, e.verdict.dominantModulus, e.verdict.returnTime, e.verdict.period]),
+        "equilibria-table",
+      ),
+    );
+    eigenChart(eigen, op ? op.eigenvalues : []);
+  }
+
+  async function margin(): Promise<void> {
+    const spec = scenarioSpec();
+    if (!spec || !marginParam.value) return;
+    try {
+      const r = await postJson<{ result: Margin }>("/api/v1/analyses", { kind: "margin", scenario: spec, parameter: marginParam.value, store: false });
+      const m = r.result;
+      const side = (word: string, s: Margin["increase"]) => (s.boundary === null ? `${word}: no change up to ${fmt(s.searchedTo)}` : `${word}: ${m.stableNow ? "stability is lost" : "stability is gained"} at ${fmt(s.boundary)} (${s.kind})`);
+      show(marginOut, `${m.parameter} is ${fmt(m.current)}. `, side("Raising it", m.increase), "; ", side("lowering it", m.decrease), ".");
+    } catch (e) {
+      show(marginOut, errorBox(e));
+    }
+  }
+
+  async function keepAnalysis(): Promise<void> {
+    const spec = scenarioSpec();
+    if (!spec) return;
+    try {
+      const r = await postJson<{ id: string }>("/api/v1/analyses", { kind: "stability", scenario: spec });
+      state.stabilityId = r.id;
+      setStatus("Stability analysis kept for the report.");
+      changed();
+    } catch (e) {
+      show(verdict, errorBox(e));
+    }
+  }
+
+  function current(path: string): number {
+    if (path.startsWith("model.params.")) return state.model!.params[path.slice(13)]!;
+    return Number(state.rule[path.slice(5)] ?? 0);
+  }
+
+  function sweepForm(id: string, onRun: (axes: { path: string; from: number; to: number; count: number }[]) => void, two: boolean): HTMLElement {
+    const axes = (two ? ["x", "y"] : ["axis"]).map((a, i) => {
+      const sel = el("select", { id: `${id}-${a}-path` }, ...paths().map((p, k) => el("option", { value: p, selected: k === (two ? (i === 0 ? 0 : paths().indexOf(MAIN[state.rule.kind]!)) : 0) }, p)));
+      const from = el("input", { type: "number", id: `${id}-${a}-from`, step: "any" });
+      const to = el("input", { type: "number", id: `${id}-${a}-to`, step: "any" });
+      const fill = () => {
+        const [lo, hi] = sweepRange(sel.value, current(sel.value), K());
+        from.value = String(Number(lo.toPrecision(4)));
+        to.value = String(Number(hi.toPrecision(4)));
+      };
+      sel.addEventListener("change", fill);
+      fill();
+      return { a, sel, from, to };
+    });
+    const count = el("input", { type: "number", id: `${id}-count`, min: 5, max: two ? 200 : 1000, value: two ? "40" : "200" });
+    return el(
+      "div",
+      { class: "row" },
+      ...axes.flatMap(({ a, sel, from, to }) => [el("label", { for: sel.id }, two ? `${a} ` : "parameter "), sel, el("label", { for: from.id }, "from"), from, el("label", { for: to.id }, "to"), to]),
+      el("label", { for: count.id }, two ? "cells per side" : "values"),
+      count,
+      el("button", { type: "button", id: `${id}-run`, onclick: () => onRun(axes.map(({ sel, from, to }) => ({ path: sel.value, from: Number(from.value), to: Number(to.value), count: Number(count.value) }))) }, two ? "Draw the regime map" : "Draw the diagram"),
+    );
+  }
+
+  function renderSweeps(): void {
+    const bifJob = el("div", {});
+    const bifChart = el("div", { class: "chart" });
+    const mapJob = el("div", {});
+    const mapChart = el("div", { class: "chart tall" });
+    show(
+      bifArea,
+      el("h3", {}, "Bifurcation diagram"),
+      sweepForm("bif", async ([axis]) => {
+        const done = await runJob(bifJob, "Diagram", () => postJson<{ job: JobView }>("/api/v1/analyses", { kind: "bifurcation", scenario: scenarioSpec(), axis }));
+        if (!done?.links.result) return;
+        const r = await getJson<{ result: Parameters<typeof bifurcationChart>[1] }>(done.links.result);
+        bifurcationChart(bifChart, r.result, current(axis!.path));
+      }, false),
+      bifJob,
+      bifChart,
+    );
+    show(
+      mapArea,
+      el("h3", {}, "Regime map"),
+      sweepForm("map", async ([x, y]) => {
+        const done = await runJob(mapJob, "Regime map", () => postJson<{ job: JobView }>("/api/v1/analyses", { kind: "regime-map", scenario: scenarioSpec(), x, y: { ...y!, count: x!.count } }));
+        if (!done?.links.result) return;
+        const r = await getJson<{ result: Parameters<typeof regimeChart>[1] }>(done.links.result);
+        regimeChart(mapChart, r.result, { x: current(x!.path), y: current(y!.path) });
+      }, true),
+      mapJob,
+      mapChart,
+    );
+  }
+
+  show(
+    root,
+    el("h2", {}, "Stability"),
+    el("p", { class: "lead" }, "Move the sliders: the verdict, the equilibria and the eigenvalues follow. A root outside the unit circle means the equilibrium is unstable."),
+    needModel,
+    el("div", { class: "two" }, el("div", {}, modelBox, ruleBox), el("div", {}, verdict, timing, eigen)),
+    eqTable,
+    el("div", { class: "row" }, el("label", { for: "margin-parameter" }, "Stability margin in"), marginParam, keep),
+    marginOut,
+    bifArea,
+    mapArea,
+  );
+  let lastModel: unknown = null;
+  onChange(() => {
+    needModel.hidden = Boolean(state.model);
+    if (state.model && state.model !== lastModel) {
+      lastModel = state.model;
+      renderModel();
+      renderRule();
+      fillMarginParams();
+      renderSweeps();
+      schedule();
+    }
+  });
+}
