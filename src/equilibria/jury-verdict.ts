@@ -7,7 +7,6 @@ export type JuryCode = 1 | 0 | -1 | -2;
 const DOUBT = 1e-6;
 
 let scratch = new Float64Array(64);
-let spare = new Float64Array(64);
 
 /**
  * The Jury stability verdict of P(z) = a0·z^n + … + an (highest power first), without
@@ -35,28 +34,35 @@ export function juryVerdict(c: ArrayLike<number>, tolerance = 1e-9): JuryCode {
   if (start === len) return -2;
   const n = len - 1 - start;
   if (n === 0) return Number.isFinite(c[start]!) ? 1 : -2;
-  if (scratch.length < n + 1) {
-    scratch = new Float64Array(2 * (n + 1));
-    spare = new Float64Array(2 * (n + 1));
-  }
-  const flip = c[start]! < 0;
+  if (scratch.length < n + 1) scratch = new Float64Array(2 * (n + 1));
   // Row 1 is [a_n … a_0]; the sums of even- and odd-power coefficients give P(1) and P(−1).
+  // A negative leading coefficient flips the sign of the first-row conditions only: every
+  // later row is a difference of products of two first-row entries, unchanged by a flip.
+  const sign = c[start]! < 0 ? -1 : 1;
   let even = 0;
   let odd = 0;
   let abs = 0;
-  let row = scratch;
-  for (let k = 0; k <= n; k++) {
-    const raw = c[len - 1 - k]!; // coefficient of z^k
-    const v = flip ? -raw : raw;
-    row[k] = v;
-    if ((k & 1) === 0) even += v;
-    else odd += v;
-    abs += v < 0 ? -v : v;
+  const row = scratch;
+  let k = 0;
+  for (; k < n; k += 2) {
+    const e = c[len - 1 - k]!; // coefficient of z^k
+    const o = c[len - 2 - k]!; // coefficient of z^(k+1)
+    row[k] = e;
+    row[k + 1] = o;
+    even += e;
+    odd += o;
+    abs += (e < 0 ? -e : e) + (o < 0 ? -o : o);
+  }
+  if (k === n) {
+    const e = c[start]!;
+    row[n] = e;
+    even += e;
+    abs += e < 0 ? -e : e;
   }
   if (!(abs < Infinity)) return -2;
-  const p1 = even + odd;
-  const pm1 = (n & 1) === 0 ? even - odd : odd - even; // (−1)^n·P(−1)
-  const a0 = row[n]!;
+  const p1 = sign * (even + odd);
+  const pm1 = sign * ((n & 1) === 0 ? even - odd : odd - even); // (−1)^n·P(−1)
+  const a0 = sign * row[n]!;
   const an = row[0]! < 0 ? -row[0]! : row[0]!;
   let doubt = false;
   // |a_n| < a_0
@@ -67,14 +73,20 @@ export function juryVerdict(c: ArrayLike<number>, tolerance = 1e-9): JuryCode {
   // P(1) > 0 and (−1)^n·P(−1) > 0
   if (p1 < -DOUBT * abs || pm1 < -DOUBT * abs) return -1;
   if (p1 < DOUBT * abs || pm1 < DOUBT * abs) doubt = true;
-  let next = spare;
+  // Each new row in place: entry i and entry m − i of the next row both come from the pair
+  // (row[i], row[m − i]), so the pair is read once and both are written back.
   for (let m = n; m >= 3 && !doubt; m--) {
     const r0 = row[0]!;
     const rm = row[m]!;
-    for (let i = 0; i < m; i++) next[i] = r0 * row[i]! - row[m - i]! * rm;
-    const swap = row;
-    row = next;
-    next = swap;
+    row[0] = r0 * r0 - rm * rm;
+    const half = m >> 1;
+    for (let i = 1; i < m - i; i++) {
+      const a = row[i]!;
+      const b = row[m - i]!;
+      row[i] = r0 * a - rm * b;
+      row[m - i] = r0 * b - rm * a;
+    }
+    if ((m & 1) === 0) row[half] = (r0 - rm) * row[half]!;
     let first = row[0]!;
     let last = row[m - 1]!;
     if (first < 0) first = -first;
@@ -93,8 +105,12 @@ export function juryVerdict(c: ArrayLike<number>, tolerance = 1e-9): JuryCode {
       for (let i = 0; i < m; i++) row[i]! *= sc;
     }
   }
-  if (!doubt) return 1;
-  const exact = juryTest(Array.from(c as ArrayLike<number>), tolerance);
+  return doubt ? decideExactly(c, tolerance) : 1;
+}
+
+/** The doubtful cases, decided by juryTest's double-double table with its tolerance. */
+function decideExactly(c: ArrayLike<number>, tolerance: number): JuryCode {
+  const exact = juryTest(Array.from(c), tolerance);
   if (!exact.ok) return -2;
   return exact.value.verdict === "stable" ? 1 : exact.value.verdict === "marginal" ? 0 : -1;
 }
