@@ -8,6 +8,8 @@ export interface Problem {
   readonly field?: string;
   readonly row?: number;
   readonly column?: string;
+  /** For a CSV: every problem, row by row. */
+  readonly problems?: { row?: number; column?: string; detail: string }[];
 }
 
 export class ApiError extends Error {

@@ -1,9 +1,10 @@
 // /api/v1/series: census and survey series, uploaded as CSV (text/csv or JSON { name, csv }).
 import { createHash } from "node:crypto";
 import { Router } from "express";
-import { parseSeriesCsv } from "../../src/fit/series.js";
-import { core, jsonObject, pageOf, parseWith, type AppContext } from "./context.js";
-import { notFound, sendProblem } from "./problem.js";
+import { parseSeriesCsv, seriesProblems } from "../../src/fit/series.js";
+import { describeIssue } from "../../src/issues.js";
+import { jsonObject, pageOf, parseWith, type AppContext } from "./context.js";
+import { issueProblem, notFound, sendProblem } from "./problem.js";
 import { seriesJsonSchema } from "./schemas.js";
 import { z } from "zod";
 
@@ -31,8 +32,14 @@ export function seriesRoutes(ctx: AppContext): Router {
       name = b.name;
       csv = b.csv;
     }
-    const series = core(parseSeriesCsv(csv), res);
-    if (!series) return;
+    const parsed = parseSeriesCsv(csv);
+    if (!parsed.ok) {
+      // Every problem row by row (up to 100), so they can all be fixed at once.
+      const problems = seriesProblems(csv).map((issue) => ({ ...issue, detail: describeIssue(issue) }));
+      sendProblem(res, { ...issueProblem(parsed.issue), problems });
+      return;
+    }
+    const series = parsed.value;
     const hash = createHash("sha256").update(csv).digest("hex");
     const rec = ctx.repo.insertSeries(name, csv, hash, series);
     res.status(201).location(`/api/v1/series/${rec.id}`).json({ ...rec, links: links(rec.id) });

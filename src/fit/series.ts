@@ -40,6 +40,25 @@ const COUNT_NAMES = ["count", "index", "abundance"];
  * cells mean "not observed" (an unrecorded catch or stocking is taken as 0, with a warning).
  */
 export function parseSeriesCsv(text: string): Result<Series> {
+  return readSeries(text, null);
+}
+
+/** Most problems seriesProblems lists. */
+export const MAX_LISTED_PROBLEMS = 100;
+
+/**
+ * Every cell-level problem of a series CSV (bad cells, duplicate years), row by row, up to
+ * MAX_LISTED_PROBLEMS, so a user can fix them all at once; or the one problem that stops
+ * the file being read at all (malformed CSV, a missing column). Empty when the CSV is valid.
+ */
+export function seriesProblems(text: string): Issue[] {
+  const list: Issue[] = [];
+  const r = readSeries(text, list);
+  if (!r.ok && list.length === 0) list.push(r.issue);
+  return list;
+}
+
+function readSeries(text: string, collect: Issue[] | null): Result<Series> {
   let records: string[][];
   try {
     records = parse(text, { skip_empty_lines: true, trim: true, bom: true, relax_column_count: false }) as string[][];
@@ -62,6 +81,14 @@ export function parseSeriesCsv(text: string): Result<Series> {
   type Row = { line: number; year: number; count: number | null; catch: number | null; stocking: number | null; cv: number | null; extra: (number | null)[] };
   const rows: Row[] = [];
   const seen = new Map<number, number>();
+  // A problem in a row: stop at the first one (parseSeriesCsv), or note it and skip the row.
+  let collected: Issue | null = null;
+  const problem = (issue: Issue): boolean => {
+    if (!collect) return true;
+    if (collect.length < MAX_LISTED_PROBLEMS) collect.push(issue);
+    collected ??= issue;
+    return false;
+  };
   for (let r = 1; r < records.length; r++) {
     const rec = records[r]!;
     const line = r + 1;
@@ -79,11 +106,23 @@ export function parseSeriesCsv(text: string): Result<Series> {
       return ok(v);
     };
     const year = cell(yearCol, "year");
-    if (!year.ok) return year;
-    if (year.value === null) return fail({ code: "csv_cell", row: line, column: records[0]![yearCol]!, value: "", expected: "a whole year" });
+    if (!year.ok) {
+      if (problem(year.issue)) return year;
+      continue;
+    }
+    if (year.value === null) {
+      const issue: Issue = { code: "csv_cell", row: line, column: records[0]![yearCol]!, value: "", expected: "a whole year" };
+      if (problem(issue)) return fail(issue);
+      continue;
+    }
     const first = seen.get(year.value);
-    if (first !== undefined) return fail({ code: "csv_duplicate_year", row: line, column: records[0]![yearCol]!, year: year.value, firstRow: first });
+    if (first !== undefined) {
+      const issue: Issue = { code: "csv_duplicate_year", row: line, column: records[0]![yearCol]!, year: year.value, firstRow: first };
+      if (problem(issue)) return fail(issue);
+      continue;
+    }
     seen.set(year.value, line);
+    let rowBad = false;
     const values: (number | null)[] = [];
     for (const [col, kind] of [[countCol, "nonneg"], [catchCol, "nonneg"], [stockCol, "nonneg"], [cvCol, "positive"]] as const) {
       if (col < 0) {
@@ -91,17 +130,25 @@ export function parseSeriesCsv(text: string): Result<Series> {
         continue;
       }
       const v = cell(col, kind);
-      if (!v.ok) return v;
-      values.push(v.value);
+      if (!v.ok) {
+        if (problem(v.issue)) return v;
+        rowBad = true;
+      }
+      values.push(v.ok ? v.value : null);
     }
     const extras: (number | null)[] = [];
     for (const col of extra) {
       const v = cell(col, "nonneg");
-      if (!v.ok) return v;
-      extras.push(v.value);
+      if (!v.ok) {
+        if (problem(v.issue)) return v;
+        rowBad = true;
+      }
+      extras.push(v.ok ? v.value : null);
     }
+    if (rowBad) continue;
     rows.push({ line, year: year.value, count: values[0]!, catch: values[1]!, stocking: values[2]!, cv: values[3]!, extra: extras });
   }
+  if (collected) return fail(collected);
   const warnings: SeriesWarning[] = [];
   const sorted = [...rows].sort((a, b) => a.year - b.year);
   if (sorted.some((r, i) => r !== rows[i])) warnings.push({ code: "years_sorted" });

@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { readFileSync } from "node:fs";
-import { parseSeriesCsv } from "../../src/fit/series.js";
+import { parseSeriesCsv, seriesProblems } from "../../src/fit/series.js";
 import { describeIssue } from "../../src/issues.js";
 import { unwrap } from "../helpers.js";
 
@@ -50,4 +50,24 @@ describe("series CSV", () => {
       expect(describeIssue(r.issue).length).toBeGreaterThan(10);
     });
   }
+});
+
+// The page lists every problem at once; the rule (one line per bad cell, in row order, the
+// first one also the error of parseSeriesCsv) is common practice, no source.
+describe("every problem of a CSV, row by row", () => {
+  it("lists each bad cell and duplicate year with its row and column", () => {
+    const text = "year,count,catch\n2000,10,1\n2001,ten,1\n2002,5,-3\n2001,7,1\n2004,x,y\n";
+    const list = seriesProblems(text);
+    expect(list.map((p) => ("row" in p ? p.row : 0))).toEqual([3, 4, 5, 6, 6]);
+    expect(list[0]).toMatchObject({ code: "csv_cell", column: "count", value: "ten" });
+    expect(list[1]).toMatchObject({ code: "csv_cell", column: "catch", expected: "a number ≥ 0" });
+    expect(list[2]).toMatchObject({ code: "csv_duplicate_year", year: 2001, firstRow: 3 });
+    expect(list[4]).toMatchObject({ column: "catch", value: "y" });
+    const first = parseSeriesCsv(text);
+    expect(first.ok ? null : first.issue).toEqual(list[0]);
+  });
+  it("is empty for a valid CSV and holds the one problem that stops reading", () => {
+    expect(seriesProblems("year,count\n2000,1\n2001,2\n")).toEqual([]);
+    expect(seriesProblems("year,total\n2000,1\n")).toMatchObject([{ code: "csv_missing_column", column: "count" }]);
+  });
 });

@@ -68,6 +68,10 @@ describe("fields are named, with the allowed range", () => {
     expect(b.type).toBe("urn:yieldloop:problem:csv");
     expect(b).toMatchObject({ row: 3, column: "count" });
     expect(b.detail).toMatch(/row 3, column "count"/);
+    // Every problem is listed, row by row, with its own sentence.
+    const many = problem(await api.post("/api/v1/series?name=bad").set("Content-Type", "text/csv").send("year,count\n2000,x\n2001,1\n2002,-1\n"), 422);
+    expect((many.problems as { row: number; detail: string }[]).map((p) => p.row)).toEqual([2, 4]);
+    expect((many.problems as { detail: string }[])[1]!.detail).toMatch(/row 4, column "count"/);
     const dup = problem(await api.post("/api/v1/series").send({ name: "dup", csv: "year,count\n2000,1\n2000,2\n" }), 422);
     expect(dup.issue).toMatchObject({ code: "csv_duplicate_year", row: 3 });
     expect(problem(await api.post("/api/v1/series?name=x").set("Content-Type", "text/csv").send(""), 422).detail).toMatch(/empty/);

@@ -1,5 +1,5 @@
 // Step 1: a series of counts, from a CSV (file picker or drag and drop) or a demo.
-import { getJson, postCsv } from "../api.js";
+import { ApiError, getJson, postCsv } from "../api.js";
 import { countsChart } from "../charts.js";
 import { changed, state, type RuleSpec, type SeriesRow } from "../state.js";
 import { el, errorBox, setStatus, show, table } from "../ui.js";
@@ -59,7 +59,14 @@ export function countsStep(root: HTMLElement): void {
       const rec = await postCsv<SeriesRecord>(`/api/v1/series?name=${encodeURIComponent(label)}`, csv);
       await open(rec.id);
     } catch (e) {
-      show(problems, el("h3", {}, "Data problems"), errorBox(e));
+      const list = e instanceof ApiError ? (e.problem.problems ?? []) : [];
+      show(
+        problems,
+        el("h3", {}, "Data problems"),
+        list.length > 1
+          ? el("div", { role: "alert", class: "error" }, el("p", {}, `${list.length} problems, row by row:`), el("ul", { id: "problem-list" }, ...list.map((p) => el("li", {}, p.detail))))
+          : errorBox(e),
+      );
     }
   }
 
