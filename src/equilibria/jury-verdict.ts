@@ -51,19 +51,19 @@ export function juryVerdict(c: ArrayLike<number>, tolerance = 1e-9): JuryCode {
     row[k + 1] = o;
     even += e;
     odd += o;
-    abs += (e < 0 ? -e : e) + (o < 0 ? -o : o);
+    abs += Math.abs(e) + Math.abs(o);
   }
   if (k === n) {
     const e = c[start]!;
     row[n] = e;
     even += e;
-    abs += e < 0 ? -e : e;
+    abs += Math.abs(e);
   }
   if (!(abs < Infinity)) return -2;
   const p1 = sign * (even + odd);
   const pm1 = sign * ((n & 1) === 0 ? even - odd : odd - even); // (−1)^n·P(−1)
   const a0 = sign * row[n]!;
-  const an = row[0]! < 0 ? -row[0]! : row[0]!;
+  const an = Math.abs(row[0]!);
   let doubt = false;
   // |a_n| < a_0
   let d = a0 - an;
@@ -87,10 +87,8 @@ export function juryVerdict(c: ArrayLike<number>, tolerance = 1e-9): JuryCode {
       row[m - i] = r0 * b - rm * a;
     }
     if ((m & 1) === 0) row[half] = (r0 - rm) * row[half]!;
-    let first = row[0]!;
-    let last = row[m - 1]!;
-    if (first < 0) first = -first;
-    if (last < 0) last = -last;
+    const first = Math.abs(row[0]!);
+    const last = Math.abs(row[m - 1]!);
     d = first - last;
     s = first + last;
     if (d < -DOUBT * s) return -1;
