@@ -226,7 +226,7 @@ function runBlock(parts: ProjectionParts, slot: number, size: number, g: IntSour
       sumCatch[k]! += c;
       if (t > 0) {
         const d = c - prevCatch[k]!;
-        sumChange[k]! += d < 0 ? -d : d;
+        sumChange[k]! += Math.abs(d);
       }
       prevCatch[k] = c;
       if (c === 0) zeroYears++;

@@ -55,7 +55,7 @@ export function zigguratNormal(g: IntSource): number {
   const j = g.next() | 0;
   const i = j & 127;
   const u = j >> 7;
-  return (u < 0 ? -u : u) < kn[i]! ? u * wn[i]! : edge(g, i, u);
+  return Math.abs(u) < kn[i]! ? u * wn[i]! : edge(g, i, u);
 }
 
 /** The rare draws outside the layer's inner rectangle: the wedge or the tail. */
@@ -75,6 +75,6 @@ function edge(g: IntSource, i: number, u: number): number {
     const j = g.next() | 0;
     i = j & 127;
     u = j >> 7;
-    if ((u < 0 ? -u : u) < kn[i]!) return u * wn[i]!;
+    if (Math.abs(u) < kn[i]!) return u * wn[i]!;
   }
 }
