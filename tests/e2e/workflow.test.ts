@@ -130,6 +130,24 @@ describe.skipIf(!HAVE_CHROMIUM)("the web page, end to end in chromium", { timeou
     });
   }
 
+  it("shows a long job's progress and cancels it", async () => {
+    const { page, errors } = await newPage(s);
+    await page.click('button[data-demo="Skerra island deer"]');
+    await page.waitForSelector("#series-table tbody tr");
+    await page.click("#tab-projection");
+    await page.fill("#u-replicates", "1000000");
+    await page.fill("#u-horizon", "200");
+    await page.click("#project-run");
+    await page.waitForSelector(".job progress");
+    await page.waitForFunction(() => Number(document.querySelector<HTMLProgressElement>(".job progress")?.value) > 0, undefined, { timeout: 60_000 });
+    await shot(page, "cancel-1-running", false);
+    await page.click('.job button:has-text("Cancel")');
+    await page.waitForSelector('[role=alert]:has-text("cancelled")', { timeout: 60_000 });
+    await shot(page, "cancel-2-cancelled", false);
+    expect(errors).toEqual([]);
+    await page.context().close();
+  });
+
   it("works from the keyboard and in a narrow window", async () => {
     const { page, errors } = await newPage(s, 760, 900);
     await page.focus("#tab-counts");
