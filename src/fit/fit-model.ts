@@ -36,6 +36,8 @@ export interface FitProblem {
   readonly options: Required<Omit<FitOptions, "seed" | "extraStarts" | "start" | "profiles">>;
   /** Names of the free parameters, natural scale: family params, then N0, then q and k (negative binomial). */
   readonly names: string[];
+  /** The allowed range of each free parameter, natural scale (the Allee A as a fraction of K). */
+  readonly bounds: { readonly min: number; readonly max: number }[];
   readonly transforms: Transform[];
   /** Negative log-likelihood (+ catch-shortfall penalty) of a free vector. */
   objective(free: readonly number[]): number;
@@ -92,21 +94,24 @@ export function fitProblem(series: Series, options: FitOptions): Result<FitProbl
   const maxY = Math.max(...observed.map((i) => y[i]!));
   const start = rickerStart(series);
   const familyNames = growth.params.map((p) => p.name);
-  const transforms: Transform[] = growth.params.map((p) => (p.name === "A" ? transformFor({ min: 0, max: 1 }) : transformFor(p)));
+  // The Allee threshold is fitted as a fraction of K (its range is then (0, 1)).
+  const bounds: { min: number; max: number }[] = growth.params.map((p) => (p.name === "A" ? { min: 0, max: 1 } : { min: p.min, max: p.max }));
   const names = [...familyNames];
+  const wide = { min: 0, max: 1e12 };
   if (opts.method === "observation") {
     names.push("N0");
-    transforms.push(transformFor({ min: 0, max: 1e12 }));
+    bounds.push(wide);
   }
   const nb = opts.likelihood === "negative-binomial";
   if (nb) {
     if (absolute) {
       names.push("q");
-      transforms.push(transformFor({ min: 0, max: 1e12 }));
+      bounds.push(wide);
     }
     names.push("k");
-    transforms.push(transformFor({ min: 0, max: 1e12 }));
+    bounds.push(wide);
   }
+  const transforms: Transform[] = bounds.map((b) => transformFor(b));
   // With recorded removals N is absolute: K must at least sustain the largest catch.
   const maxCatch = Math.max(0, ...series.catch);
   const scaleK = absolute ? Math.max(maxY * 2, (10 * maxCatch) / Math.max(start.r, 0.2)) : maxY * 1.5;
@@ -191,7 +196,7 @@ export function fitProblem(series: Series, options: FitOptions): Result<FitProbl
   const concentrated = nb ? 0 : opts.likelihood === "poisson" ? (absolute && opts.method === "observation" ? 1 : 0) : 1 + (absolute && opts.method === "observation" ? 1 : 0);
   const estimated = names.length + concentrated;
   if (used.length < estimated + 2) return fail({ code: "series_too_short", minimum: estimated + 2, actual: used.length });
-  return ok({ options: opts, names, transforms, objective, natural, evaluate, observations: used.length, estimated, start: startFree });
+  return ok({ options: opts, names, bounds, transforms, objective, natural, evaluate, observations: used.length, estimated, start: startFree });
 }
 
 /** Start values from the Ricker regression ln(y[t+1]/y[t]) = r − (r/K)·y[t] (least squares). */

@@ -69,7 +69,8 @@ export type IdentifiabilityProblem =
   | { code: "hessian_singular" }
   | { code: "implausible_scale"; parameter: string; value: number; largestAbundance: number }
   | { code: "not_converged" }
-  | { code: "flat_profile"; parameter: string; side: "lower" | "upper" | "both" };
+  | { code: "flat_profile"; parameter: string; side: "lower" | "upper" | "both" }
+  | { code: "unbounded_interval"; parameter: string; side: "lower" | "upper" };
 
 /**
  * Fits one growth model to a series and reports estimates, standard errors and correlations
@@ -78,7 +79,9 @@ export type IdentifiabilityProblem =
  * MSY quantities and the stability verdict of the fitted unharvested model, and an
  * 95% profile-likelihood intervals (by default for the growth rate and K), and an
  * identifiability check: |correlation| > 0.995 between two parameters, an estimate at a bound,
- * a profile that stays flat to the end of the range,
+ * a profile that stays flat to the end of the range, an approximate 95% interval that reaches
+ * the parameter's allowed upper bound (or, for a parameter bounded below by 0, falls a
+ * millionfold below the estimate),
  * K or N0 above 1000× the largest abundance the survey implies, a singular Hessian or a
  * failed convergence make the fit "not trustworthy" (thresholds:
  * common practice, no source; see Hilborn & Walters 1992, ch. 8, on one-way trips).
@@ -147,6 +150,14 @@ export function summarise(
   if (!opt.converged) problems.push({ code: "not_converged" });
   if (!cov.positiveDefinite) problems.push({ code: "hessian_singular" });
   for (const b of atBound) problems.push({ code: "at_bound", parameter: b });
+  p.names.forEach((name, i) => {
+    const ci = intervals[name];
+    const info = p.bounds[i];
+    if (!ci || !info || name === "A") return;
+    const est = estimates[name]!;
+    if (Number.isFinite(info.max) && ci.upper >= info.max * (1 - 1e-9)) problems.push({ code: "unbounded_interval", parameter: name, side: "upper" });
+    else if (info.min === 0 && ci.lower < 1e-6 * est) problems.push({ code: "unbounded_interval", parameter: name, side: "lower" });
+  });
   for (const ci of profiles) {
     if (ci.lowerOpen || ci.upperOpen) problems.push({ code: "flat_profile", parameter: ci.parameter, side: ci.lowerOpen && ci.upperOpen ? "both" : ci.lowerOpen ? "lower" : "upper" });
   }

@@ -38,6 +38,18 @@ describe("identifiability", () => {
     expect(fit.identifiability.problems.length).toBeGreaterThan(0);
   });
 
+  it("an approximate interval that runs to a parameter's bound is named (the data cannot bound it)", () => {
+    // The steady-harvest series above again: whatever else is flagged, any interval that
+    // reaches the top of its parameter's range must be reported as unbounded on that side.
+    const fit = unwrap(fitSeries(series(() => 0.3, 4), { family: "ricker" }));
+    for (const [name, ci] of Object.entries(fit.intervals)) {
+      const top = name === "r" ? 10 : 1e12;
+      const flagged = fit.identifiability.problems.some((p) => p.code === "unbounded_interval" && p.parameter === name && p.side === "upper");
+      expect(flagged, name).toBe(ci !== null && ci.upper >= top * (1 - 1e-9));
+    }
+    expect(fit.identifiability.problems.some((p) => p.code === "unbounded_interval")).toBe(true);
+  });
+
   it("the same stock fished down and then allowed to recover (contrast) is trustworthy", () => {
     // A harvest that rises only makes a "one-way trip", itself poorly informative; down and
     // back up gives the contrast that separates r from K.
