@@ -71,6 +71,9 @@ export function createApp(opts: AppOptions): express.Express {
   api.use((req, res) => sendProblem(res, { type: PROBLEM_TYPES.notFound, title: "Not found", status: 404, detail: `no route ${req.method} ${req.baseUrl}${req.path}` }));
   app.use("/api/v1", api);
   if (opts.staticDir && existsSync(opts.staticDir)) app.use(express.static(opts.staticDir, { index: "index.html", maxAge: "1h" }));
+  else if (opts.staticDir) {
+    app.get("/", (_req, res) => res.type("text/plain; charset=utf-8").send("The web page has not been built yet: run `npm run build` (or start with `npm start`, which builds it). The API is at /api/v1/.\n"));
+  }
   app.use((req, res) => sendProblem(res, { type: PROBLEM_TYPES.notFound, title: "Not found", status: 404, detail: `nothing at ${req.path}` }));
   app.use(errors);
   return app;

@@ -118,6 +118,13 @@ describe("security defaults", () => {
     expect(r.headers["content-security-policy"]).toContain("frame-ancestors 'none'");
     expect(r.headers["x-powered-by"]).toBeUndefined();
   });
+  it("says how to build the page when it has not been built", async () => {
+    const t = createRuntime({ database: ":memory:", workers: 1, staticDir: "/nonexistent/page" });
+    const r = await request(t.app).get("/");
+    expect(r.status).toBe(200);
+    expect(r.text).toMatch(/npm run build/);
+    await t.close();
+  });
   it("with a token, every API request needs it", async () => {
     const t = testRuntime({ token: "s3cret-token" });
     const no = await t.api.get("/api/v1/series");
