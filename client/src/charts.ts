@@ -169,13 +169,14 @@ export function regimeChart(container: HTMLElement, m: { x: { path: string; valu
     if (!groups.has(name)) groups.set(name, []);
     groups.get(name)!.push({ x: m.x.values[k % nx]!, y: m.y.values[Math.floor(k / nx)]! });
   });
-  const size = Math.max(2, Math.min(26, 460 / Math.max(nx, m.y.values.length)));
+  // Square cells that tile the (roughly square) plot area.
+  const size = Math.max(2, Math.min(30, 440 / Math.max(nx, m.y.values.length)));
   return drawChart(container, "regime-map", `Regimes over ${m.x.path} × ${m.y.path}`, {
     type: "scatter",
     data: {
       datasets: [
         ...[...groups.entries()].map(([name, data]) => ({ label: name, data, pointStyle: "rect" as const, pointRadius: size / 2 + 0.5, backgroundColor: REGIME_COLOURS[name] ?? PALETTE.grey, borderWidth: 0 })),
-        { label: "stability boundary", data: m.boundary.map((b) => ({ x: b.x, y: b.y })), pointRadius: 2, backgroundColor: "#000", borderColor: "#000" },
+        { label: "stability boundary", data: m.boundary.map((b) => ({ x: b.x, y: b.y })), pointRadius: 4, backgroundColor: "#000", borderColor: "#fff", borderWidth: 1.5 },
         { label: "current rule", data: [current], pointStyle: "rectRot", pointRadius: 8, borderColor: "#000", backgroundColor: "#e8c766", borderWidth: 2 },
       ],
     },

@@ -144,6 +144,10 @@ export function analysisTable(result: Record<string, unknown>): Table {
       rows: (["increase", "decrease"] as const).map((d) => [m.parameter, d, m.current, m[d].boundary as number | null, m[d].kind as string | null, m[d].margin as number | null, m[d].searchedTo as number]),
     };
   }
+  if (Array.isArray(result.perModel)) {
+    const r = result as { perModel: { weight: number; class: string; label: string }[]; models: string[] };
+    return { header: ["model", "Akaike weight", "behaviour under the rule", "verdict"], rows: r.perModel.map((m, i) => [r.models[i] ?? null, m.weight, m.class, m.label]) };
+  }
   if (Array.isArray(result.values) && Array.isArray(result.regimes)) {
     const b = result as { parameter: string; values: number[]; regimes: string[]; periods: (number | null)[]; equilibrium: (number | null)[]; stability: (number | null)[] };
     return {

@@ -4,6 +4,10 @@ import { Router, type Response } from "express";
 import { stabilityMargin } from "../../src/equilibria/margin.js";
 import { analyseStability } from "../../src/equilibria/stability.js";
 import { parseRule } from "../../src/policy/rule-spec.js";
+import { families } from "../../src/models/families.js";
+import { parseModel, type Model } from "../../src/models/model-spec.js";
+import { fail, ok, type Result } from "../../src/result.js";
+import { robustVerdict } from "../../src/sim/robust-verdict.js";
 import type { Provenance, ResultKind } from "../store/repository.js";
 import type { JobOutcome } from "../jobs/job-runner.js";
 import { core, jsonObject, pageOf, parseWith, sendIssue, type AppContext } from "./context.js";
@@ -71,6 +75,19 @@ export function resultRoutes(ctx: AppContext): Router {
     if (!b) return;
     const { model, rule } = input.scenario;
     const request = { ...b, scenario: input.spec };
+    if (b.kind === "robust") {
+      const fit = ctx.repo.getResult("fit", b.fitId);
+      if (!fit) return sendProblem(res, notFound("fit", b.fitId));
+      const models = fittedModels(fit.result);
+      if (!models.ok) return sendIssue(res, models.issue, "fitId");
+      const v = robustVerdict(models.value.map((m) => ({ model: m.model, weight: m.weight })), rule);
+      if (!v.ok) return sendIssue(res, v.issue);
+      const result = { ...v.value, models: models.value.map((m) => m.label) };
+      if (b.store === false) return void res.status(200).json({ kind: "analysis", request, result, stored: false });
+      const rec = ctx.repo.insertResult("analysis", request, jsonSafe(result), provenance(input, { seriesId: fit.seriesId, dataHash: fit.dataHash }));
+      res.status(201).location(`/api/v1/analyses/${rec.id}`).json({ ...rec, links: resultLinks("analysis", rec.id) });
+      return;
+    }
     if (b.kind === "stability" || b.kind === "margin") {
       let result: unknown;
       if (b.kind === "stability") result = analyseStability(input.scenario.loop);
@@ -167,6 +184,22 @@ export function resultRoutes(ctx: AppContext): Router {
     });
   }
   return r;
+}
+
+/** The models of a stored fit result with their Akaike weights, validated by src/. */
+function fittedModels(result: unknown): Result<{ model: Model; weight: number; label: string }[]> {
+  const fits = (result as { fits?: { family: string; delay: number; estimates: Record<string, number>; weight: number }[] }).fits ?? [];
+  const out: { model: Model; weight: number; label: string }[] = [];
+  for (const f of fits) {
+    const family = families[f.family as keyof typeof families];
+    if (!family) continue;
+    const params: Record<string, number> = {};
+    for (const p of family.params) if (f.estimates[p.name] !== undefined) params[p.name] = f.estimates[p.name]!;
+    const m = parseModel({ family: f.family, params, delay: f.delay });
+    // A fit at the edge of a parameter's range may not be a valid model spec; it is left out.
+    if (m.ok) out.push({ model: m.value, weight: f.weight, label: `${f.family}${f.delay ? ` (delay ${f.delay})` : ""}` });
+  }
+  return out.length ? ok(out) : fail({ code: "constraint_violated", field: "fitId", constraint: "the fit holds no usable model" });
 }
 
 /** The scenario spec without its uncertainty (what parseScenario takes). */

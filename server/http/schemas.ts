@@ -56,6 +56,7 @@ export const analysisBodySchema = z.discriminatedUnion("kind", [
   z.strictObject({ kind: z.literal("margin"), ...scenarioRef, parameter: z.string().describe("e.g. rule.rate, rule.surveyLag, model.params.r"), store: preview }),
   z.strictObject({ kind: z.literal("bifurcation"), ...scenarioRef, axis, options: longRunOptions }),
   z.strictObject({ kind: z.literal("regime-map"), ...scenarioRef, x: axis, y: axis, options: longRunOptions }),
+  z.strictObject({ kind: z.literal("robust"), ...scenarioRef, fitId: id.describe("a stored fit: its models, weighted by Akaike weight, under the scenario's rule"), store: preview }),
 ]);
 
 export const projectionBodySchema = z.strictObject({ ...scenarioRef, uncertainty: uncertaintySchema.optional().describe("defaults to the scenario's own") });

@@ -76,6 +76,8 @@ describe.skipIf(!HAVE_CHROMIUM)("the web page, end to end in chromium", { timeou
       const ms = Number(await page.getAttribute("#update-time", "data-ms"));
       console.log(`${demo.name}: one preview update took ${ms} ms in the browser`);
       await page.waitForFunction(() => /is .*\. Raising it/.test(document.getElementById("margin")?.textContent ?? ""));
+      // The same rule under every fitted model, weighted by Akaike weight.
+      await page.waitForFunction(() => /of the weighted model set/.test(document.getElementById("robust")?.textContent ?? ""));
       await page.fill("#bif-count", "60");
       await page.click("#bif-run");
       await page.waitForSelector('canvas[data-chart="bifurcation"]', { timeout: 120_000 });

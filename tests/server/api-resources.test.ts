@@ -45,6 +45,16 @@ describe("series", () => {
     const bh = fit.body.result.fits.find((f: { family: string }) => f.family === "beverton-holt");
     expect(Math.abs(bh.estimates.K / 2400 - 1)).toBeLessThan(0.05);
     expect((await api.get("/api/v1/fits")).body.items).toHaveLength(1);
+    // The robust verdict of a rule over the fitted models, weighted by Akaike weight
+    // (src/sim/robust-verdict.ts): the weights of the classes sum to one and match the fits'.
+    const rv = await api.post("/api/v1/analyses").send({ kind: "robust", fitId: fit.body.id, scenario: { model: { family: "beverton-holt", params: { R0: 1.6, K: 2400 } }, rule: { kind: "constant-catch", quota: 180, timing: "before" }, start: 780, horizon: 20 } });
+    expect(rv.status).toBe(201);
+    const w = rv.body.result.weights as Record<string, number>;
+    expect(Object.values(w).reduce((a, b) => a + b, 0)).toBeCloseTo(1, 12);
+    rv.body.result.perModel.forEach((m: { weight: number }, i: number) => expect(m.weight).toBeCloseTo(fit.body.result.fits[i].weight, 12));
+    expect(rv.body.result.summary).toMatch(/under \d+% of the weighted model set/);
+    const rvt = await api.get(`/api/v1/analyses/${rv.body.id}/table.csv`);
+    expect(rvt.text.split("\r\n")[0]).toBe("model,Akaike weight,behaviour under the rule,verdict");
     const table = await api.get(`/api/v1/fits/${fit.body.id}/table.csv`);
     const [head, first] = table.text.split("\r\n");
     expect(head).toBe("model,AICc,delta AICc,Akaike weight,r or R0,r or R0 lower 95%,r or R0 upper 95%,K (stock units),K lower 95%,K upper 95%,MSY (stock units per year),unharvested verdict,trustworthy");

@@ -69,6 +69,7 @@ export function stabilityStep(root: HTMLElement): void {
   const eigen = el("div", { class: "chart square" });
   const marginParam = el("select", { id: "margin-parameter", onchange: () => void margin() });
   const marginOut = el("p", { id: "margin", "aria-live": "polite" });
+  const robustOut = el("p", { id: "robust", "aria-live": "polite" });
   const timing = el("p", { class: "timing", id: "update-time" });
   const keep = el("button", { type: "button", class: "secondary", id: "keep-analysis", onclick: () => void keepAnalysis() }, "Keep this analysis for the report");
   const bifArea = el("div", {});
@@ -159,7 +160,10 @@ export function stabilityStep(root: HTMLElement): void {
     }
     void update();
     clearTimeout(marginTimer);
-    marginTimer = setTimeout(() => void margin(), 250);
+    marginTimer = setTimeout(() => {
+      void margin();
+      void robust();
+    }, 250);
   }
 
   async function update(): Promise<void> {
@@ -213,6 +217,18 @@ export function stabilityStep(root: HTMLElement): void {
       show(marginOut, `${m.parameter} is ${fmt(m.current)}. `, side("Raising it", m.increase), "; ", side("lowering it", m.decrease), ".");
     } catch (e) {
       show(marginOut, errorBox(e));
+    }
+  }
+
+  /** The rule's verdict under every fitted model, weighted by Akaike weight. */
+  async function robust(): Promise<void> {
+    const spec = scenarioSpec();
+    if (!spec || !state.fitId) return show(robustOut);
+    try {
+      const r = await postJson<{ result: { summary: string } }>("/api/v1/analyses", { kind: "robust", scenario: spec, fitId: state.fitId, store: false });
+      show(robustOut, el("strong", {}, "Across the fitted models: "), `${r.result.summary}.`);
+    } catch (e) {
+      show(robustOut, errorBox(e));
     }
   }
 
@@ -299,6 +315,7 @@ export function stabilityStep(root: HTMLElement): void {
     eqTable,
     el("div", { class: "row" }, el("label", { for: "margin-parameter" }, "Stability margin in"), marginParam, keep),
     marginOut,
+    robustOut,
     bifArea,
     mapArea,
   );
