@@ -10,6 +10,8 @@ import { analyseStability } from "../../src/equilibria/stability.js";
 import { MARGIN_PARAMETER } from "../../src/sim/rule-comparison.js";
 import { toCsv, type Cell } from "../export/csv.js";
 import { CAUTION } from "../export/report.js";
+import { formatNumber } from "../export/text.js";
+import { scenarioOnly } from "../http/scenario-input.js";
 import { comparisonTable, projectionTable, riskTable, type Table } from "../export/tables.js";
 import { jsonSafe } from "../http/json-safe.js";
 import { createAnalysisPool } from "../workers/pool.js";
@@ -23,7 +25,7 @@ export interface CommonOptions {
 }
 
 const print = (s: string) => process.stdout.write(s.endsWith("\n") ? s : `${s}\n`);
-const fmt = (v: unknown) => (typeof v === "number" ? (Math.abs(v) >= 1000 ? Math.round(v).toLocaleString("en-GB") : String(Number(v.toPrecision(4)))) : v === null || v === undefined ? "—" : String(v));
+const fmt = (v: unknown) => formatNumber(v);
 
 function rejected(issue: Issue, where: string): never {
   throw new CliError(`${where}: ${describeIssue(issue)}`, EXIT.invalidInput);
@@ -120,10 +122,6 @@ function uncertaintyOf(spec: Record<string, unknown>, o: { replicates?: string; 
   return u;
 }
 
-const scenarioOnly = (spec: Record<string, unknown>) => {
-  const { uncertainty: _u, ...rest } = spec;
-  return rest;
-};
 
 export async function projectCommand(file: string, o: CommonOptions & { replicates?: string; seed?: string; workers?: string }): Promise<void> {
   const sf = readScenarioFile(file);

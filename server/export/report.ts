@@ -6,6 +6,7 @@ import type { StabilityMargin } from "../../src/equilibria/margin.js";
 import type { StochasticProjection } from "../../src/sim/risk-metrics.js";
 import type { ResultRecord } from "../store/repository.js";
 import { fanChartSvg } from "./svg-chart.js";
+import { escapeHtml, formatNumber } from "./text.js";
 import { comparisonTable, projectionTable, riskTable, ruleText, type Table } from "./tables.js";
 
 export const CAUTION =
@@ -25,9 +26,8 @@ export interface ReportInput {
   readonly generatedAt: string;
 }
 
-const esc = (s: unknown) =>
-  String(s ?? "").replace(/[&<>"']/g, (c) => ({ "&": "&amp;", "<": "&lt;", ">": "&gt;", '"': "&quot;", "'": "&#39;" })[c]!);
-const num = (v: unknown, digits = 4) => (typeof v === "number" ? (Math.abs(v) >= 1000 ? Math.round(v).toLocaleString("en-GB") : Number(v.toPrecision(digits)).toString()) : v === null || v === undefined ? "—" : esc(v));
+const esc = escapeHtml;
+const num = (v: unknown, digits = 4) => escapeHtml(formatNumber(v, digits));
 
 function table(t: Table, caption: string): string {
   const head = t.header.map((h) => `<th scope="col">${esc(h)}</th>`).join("");

@@ -1,6 +1,8 @@
 // A fan chart as standalone SVG, for the printable report: nested percentile bands and
 // the median of a quantity per year, with labelled axes and an optional dashed reference
 // line (e.g. the limit reference point). Presentation only; the numbers come from src/.
+import { escapeHtml } from "./text.js";
+
 export interface FanChart {
   readonly title: string;
   readonly yLabel: string;
@@ -14,7 +16,7 @@ export interface FanChart {
 const W = 640;
 const H = 300;
 const M = { left: 64, right: 16, top: 28, bottom: 40 };
-const esc = (s: string) => s.replace(/&/g, "&amp;").replace(/</g, "&lt;").replace(/>/g, "&gt;").replace(/"/g, "&quot;");
+const esc = escapeHtml;
 
 /** "Nice" axis ticks covering [lo, hi]: steps of 1, 2 or 5 × 10^k. */
 export function niceTicks(lo: number, hi: number, target = 5): number[] {

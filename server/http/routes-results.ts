@@ -1,6 +1,6 @@
 // /api/v1/fits, /analyses, /projections, /comparisons: results with their provenance.
 // Quick analyses (stability, margin) answer 201 at once; long work answers 202 with a job.
-import { Router, type Response } from "express";
+import { Router, type Request, type Response } from "express";
 import { stabilityMargin } from "../../src/equilibria/margin.js";
 import { analyseStability } from "../../src/equilibria/stability.js";
 import { parseRule } from "../../src/policy/rule-spec.js";
@@ -13,7 +13,7 @@ import type { JobOutcome } from "../jobs/job-runner.js";
 import { core, jsonObject, pageOf, parseWith, sendIssue, type AppContext } from "./context.js";
 import { jsonSafe } from "./json-safe.js";
 import { notFound, sendProblem } from "./problem.js";
-import { contentHash, scenarioFrom, uncertaintyFrom, type ScenarioInput } from "./scenario-input.js";
+import { contentHash, scenarioFrom, scenarioOnly, uncertaintyFrom, type ScenarioInput } from "./scenario-input.js";
 import { analysisBodySchema, comparisonBodySchema, fitBodySchema, projectionBodySchema } from "./schemas.js";
 
 const PATHS: Record<ResultKind, string> = { fit: "fits", analysis: "analyses", projection: "projections", comparison: "comparisons" };
@@ -45,6 +45,16 @@ export function resultRoutes(ctx: AppContext): Router {
       return undefined;
     }
     return core(s, res);
+  };
+  // The body, its scenario and its uncertainty (the body's, else the scenario's own), or
+  // undefined once the request has been answered with the problem.
+  const simulationInput = (req: Request, res: Response) => {
+    const body = jsonObject(req, res);
+    if (!body) return undefined;
+    const input = scenario(body, res);
+    if (!input) return undefined;
+    const u = core(uncertaintyFrom(body, input), res);
+    return u ? { body, input, u } : undefined;
   };
   const outcome = (kind: ResultKind, result: unknown, p: Provenance): JobOutcome => ({ ok: true, kind, result: jsonSafe(result), provenance: p });
 
@@ -122,12 +132,9 @@ export function resultRoutes(ctx: AppContext): Router {
   });
 
   r.post("/projections", (req, res) => {
-    const body = jsonObject(req, res);
-    if (!body) return;
-    const input = scenario(body, res);
-    if (!input) return;
-    const u = core(uncertaintyFrom(body, input), res);
-    if (!u) return;
+    const got = simulationInput(req, res);
+    if (!got) return;
+    const { body, input, u } = got;
     const { scenario: _sc, uncertainty: _u, ...rest } = body;
     if (!parseWith(projectionBodySchema, rest, res)) return;
     const request = { scenarioId: input.scenarioId, scenario: input.spec, uncertainty: u.raw };
@@ -139,12 +146,9 @@ export function resultRoutes(ctx: AppContext): Router {
   });
 
   r.post("/comparisons", (req, res) => {
-    const body = jsonObject(req, res);
-    if (!body) return;
-    const input = scenario(body, res);
-    if (!input) return;
-    const u = core(uncertaintyFrom(body, input), res);
-    if (!u) return;
+    const got = simulationInput(req, res);
+    if (!got) return;
+    const { body, input, u } = got;
     let rules: unknown[];
     if (Array.isArray(body.ruleIds)) {
       rules = [];
@@ -200,12 +204,6 @@ function fittedModels(result: unknown): Result<{ model: Model; weight: number; l
     if (m.ok) out.push({ model: m.value, weight: f.weight, label: `${f.family}${f.delay ? ` (delay ${f.delay})` : ""}` });
   }
   return out.length ? ok(out) : fail({ code: "constraint_violated", field: "fitId", constraint: "the fit holds no usable model" });
-}
-
-/** The scenario spec without its uncertainty (what parseScenario takes). */
-function scenarioOnly(spec: Record<string, unknown>): Record<string, unknown> {
-  const { uncertainty: _u, ...rest } = spec;
-  return rest;
 }
 
 export function jobLinks(id: string) {

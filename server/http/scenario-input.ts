@@ -78,3 +78,9 @@ export function uncertaintyFrom(body: Record<string, unknown>, input: ScenarioIn
 export function contentHash(value: unknown): string {
   return createHash("sha256").update(JSON.stringify(value)).digest("hex");
 }
+
+/** A scenario spec without its uncertainty (what parseScenario and the worker pool take). */
+export function scenarioOnly(spec: Record<string, unknown>): Record<string, unknown> {
+  const { uncertainty: _u, ...rest } = spec;
+  return rest;
+}

@@ -138,9 +138,7 @@ function vectorYear(loop: ClosedLoop, x: Float64Array, lp: number, sm: number, i
   noise.survey = sm;
   noise.implementation = im;
   loop.step(x, x, rec, noise);
-  const next = x[0]!;
-  if (!(next <= UNBOUNDED_FACTOR * loop.model.params.K!)) x[0] = UNBOUNDED_FACTOR * loop.model.params.K!;
-  return next;
+  return x[0]!;
 }
 
 function runBlock(parts: ProjectionParts, slot: number, size: number, g: IntSource, loops: readonly ClosedLoop[], scenario: Scenario, u: Uncertainty, K: number, st: BlockState): void {
@@ -210,6 +208,7 @@ function runBlock(parts: ProjectionParts, slot: number, size: number, g: IntSour
       if (!(next <= bound)) {
         next = bound;
         f |= UNBOUNDED;
+        if (vector) st.x[k]![0] = bound;
       }
       n[k] = next;
       const c = rec.catch;
