@@ -50,36 +50,55 @@ export function findEquilibria(loop: ClosedLoop, options: EquilibriumOptions = {
   let upper = 2 * K + 2 * A;
   for (let i = 0; i < 60 && phi(upper) > 0; i++) upper *= 2;
   const gridPoints = options.gridPoints ?? 2000;
-  // Merge the log grid (from 1e-10·K) and the even grid, both increasing, without sorting.
-  const grid: number[] = [0];
-  const logTop = Math.min(K, upper);
-  let li = 0;
-  let ei = 1;
-  while (li <= 60 || ei <= gridPoints) {
-    const lv = li <= 60 ? logTop * Math.pow(10, -10 + (10 * li) / 60) : Infinity;
-    const ev = ei <= gridPoints ? (upper * ei) / gridPoints : Infinity;
-    const v = lv < ev ? lv : ev;
-    if (lv < ev) li++;
-    else ei++;
-    if (v > grid[grid.length - 1]!) grid.push(v);
-  }
-  const fs = grid.map(phi);
   const tol = 1e-9 * K;
   const roots: { n: number; double: boolean }[] = [];
-  for (let i = 0; i < grid.length; i++) {
-    const f = fs[i]!;
-    if (f === 0) roots.push({ n: grid[i]!, double: false });
-    if (i + 1 < grid.length && f * fs[i + 1]! < 0) roots.push({ n: brentRoot(phi, grid[i]!, grid[i + 1]!), double: false });
-    if (i > 0 && i + 1 < grid.length && f !== 0) {
-      const prev = fs[i - 1]!;
-      const next = fs[i + 1]!;
-      const extremum = (f > prev && f >= next && f < 0) || (f < prev && f <= next && f > 0);
+  // The grid is the merge of the log grid (61 points from 1e-10·K) and the even grid, both
+  // increasing, visited in one pass: each point is examined once its right neighbour is known.
+  const logTop = Math.min(K, upper);
+  const logPoint = (i: number) => (i <= 60 ? logTop * Math.pow(10, -10 + (10 * i) / 60) : Infinity);
+  let li = 0;
+  let ei = 1;
+  let lv = logPoint(0);
+  let xPrev = 0;
+  let fPrev = 0;
+  let havePrev = false;
+  let x = 0;
+  let f = phi(0);
+  for (;;) {
+    let xNext = Number.NaN;
+    while (li <= 60 || ei <= gridPoints) {
+      const ev = ei <= gridPoints ? (upper * ei) / gridPoints : Infinity;
+      let v: number;
+      if (lv < ev) {
+        v = lv;
+        lv = logPoint(++li);
+      } else {
+        v = ev;
+        ei++;
+      }
+      if (v > x) {
+        xNext = v;
+        break;
+      }
+    }
+    const hasNext = !Number.isNaN(xNext);
+    const fNext = hasNext ? phi(xNext) : 0;
+    if (f === 0) roots.push({ n: x, double: false });
+    if (hasNext && f * fNext < 0) roots.push({ n: brentRoot(phi, x, xNext), double: false });
+    if (havePrev && hasNext && f !== 0) {
+      const extremum = (f > fPrev && f >= fNext && f < 0) || (f < fPrev && f <= fNext && f > 0);
       if (extremum && Math.abs(f) < 1e3 * tol) {
         const sign = f < 0 ? 1 : -1;
-        const best = maximiseOnInterval((v) => sign * phi(v), grid[i - 1]!, grid[i + 1]!, 16);
+        const best = maximiseOnInterval((v) => sign * phi(v), xPrev, xNext, 16);
         if (Math.abs(best.value) <= tol) roots.push({ n: best.x, double: true });
       }
     }
+    if (!hasNext) break;
+    xPrev = x;
+    fPrev = f;
+    havePrev = true;
+    x = xNext;
+    f = fNext;
   }
   roots.sort((a, b) => a.n - b.n);
   const merged: { n: number; double: boolean }[] = [];
