@@ -47,6 +47,9 @@ function bearer(token: string): RequestHandler {
 export function createApp(opts: AppOptions): express.Express {
   const app = express();
   app.disable("x-powered-by");
+  // No ETag: every answer of this API is either just made (a POST) or cheap to send again,
+  // and hashing each body costs more than it saves.
+  app.set("etag", false);
   app.set("query parser", "simple");
   app.use(securityHeaders);
   const api = express.Router();
@@ -63,10 +66,12 @@ export function createApp(opts: AppOptions): express.Express {
   });
   const doc = openApiDocument(opts.version);
   api.get("/openapi.json", (_req, res) => res.json(doc));
+  // Results first: a quick analysis is by far the most frequent request (the page asks for one
+  // on every slider move), and express tries each router's routes in order.
+  api.use(resultRoutes(opts));
   api.use(seriesRoutes(opts));
   api.use(specRoutes(opts));
   api.use(exportRoutes(opts));
-  api.use(resultRoutes(opts));
   api.use(jobRoutes(opts));
   api.use((req, res) => sendProblem(res, { type: PROBLEM_TYPES.notFound, title: "Not found", status: 404, detail: `no route ${req.method} ${req.baseUrl}${req.path}` }));
   app.use("/api/v1", api);

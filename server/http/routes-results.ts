@@ -74,7 +74,7 @@ export function resultRoutes(ctx: AppContext): Router {
     });
   });
 
-  r.post("/analyses", (req, res) => {
+  r.post("/analyses", async (req, res) => {
     const body = jsonObject(req, res);
     if (!body) return;
     // The scenario first, so its issues name the exact field; then the rest of the body.
@@ -110,8 +110,16 @@ export function resultRoutes(ctx: AppContext): Router {
         res.status(200).json({ kind: "analysis", request, result: jsonSafe(result), stored: false });
         return;
       }
-      const rec = ctx.repo.insertResult("analysis", request, jsonSafe(result), provenance(input));
-      res.status(201).location(`/api/v1/analyses/${rec.id}`).json({ ...rec, links: resultLinks("analysis", rec.id) });
+      // The JSON text is made once, for the row and for the answer.
+      const requestJson = JSON.stringify(request);
+      // A stability analysis or a margin is plain numbers, strings and arrays (a test checks
+      // that this text equals jsonText's), so the fast JSON.stringify without a replacer will do.
+      const resultJson = JSON.stringify(result);
+      const p = provenance(input);
+      const { id, createdAt } = await ctx.repo.insertResultText("analysis", requestJson, resultJson, p);
+      const head = JSON.stringify({ id, kind: "analysis" });
+      const tail = JSON.stringify({ ...p, createdAt, links: resultLinks("analysis", id) });
+      res.status(201).location(`/api/v1/analyses/${id}`).type("json").send(`${head.slice(0, -1)},"request":${requestJson},"result":${resultJson},${tail.slice(1)}`);
       return;
     }
     const specModel = input.spec.model;

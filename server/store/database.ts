@@ -16,6 +16,8 @@ export function openDatabase(path: string): Db {
   // transactions, never corrupt the file); it is SQLite's recommended setting for WAL.
   db.pragma("synchronous = NORMAL");
   db.pragma("busy_timeout = 5000");
+  // 32 MB of page cache (the default is 2 MB): the indexes a busy server writes stay in memory.
+  db.pragma("cache_size = -32000");
   migrate(db);
   return db;
 }

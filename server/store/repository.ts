@@ -1,6 +1,7 @@
 // Every read and write of the store, as prepared statements; multi-row writes in one
 // transaction. The seam where a PostgreSQL store would plug in (same methods).
-import { randomUUID } from "node:crypto";
+import { GroupCommit } from "./group-commit.js";
+import { timeOrderedId } from "./ids.js";
 import type { Series } from "../../src/fit/series.js";
 import type { Db } from "./database.js";
 
@@ -64,8 +65,10 @@ const json = (text: unknown) => (text === null || text === undefined ? null : JS
 
 export class Repository {
   private readonly st;
+  private readonly group: GroupCommit;
 
   constructor(readonly db: Db) {
+    this.group = new GroupCommit(db);
     this.st = {
       insertSeries: db.prepare("INSERT INTO series (id, name, csv, content_hash, years, warnings, created_at) VALUES (?, ?, ?, ?, ?, ?, ?)"),
       insertSeriesRow: db.prepare("INSERT INTO series_rows (series_id, row, year, count, catch, stocking, cv) VALUES (?, ?, ?, ?, ?, ?, ?)"),
@@ -100,7 +103,7 @@ export class Repository {
 
   /** Stores a series and its rows in one transaction. */
   insertSeries(name: string, csv: string, contentHash: string, series: Series): SeriesRecord {
-    const id = randomUUID();
+    const id = timeOrderedId();
     const createdAt = now();
     this.db.transaction(() => {
       this.st.insertSeries.run(id, name, csv, contentHash, series.years.length, JSON.stringify(series.warnings), createdAt);
@@ -139,7 +142,7 @@ export class Repository {
   }
 
   insertSpec(kind: SpecKind, name: string, spec: unknown): SpecRecord {
-    const id = randomUUID();
+    const id = timeOrderedId();
     const createdAt = now();
     this.st.insertSpec.run(id, kind, name, JSON.stringify(spec), createdAt);
     return { id, kind, name, spec, createdAt };
@@ -163,8 +166,20 @@ export class Repository {
     return this.st.deleteSpec.run(kind, id).changes > 0;
   }
 
+  /**
+   * Stores a result given as JSON text through the group commit (see group-commit.ts), for
+   * results that requests store in large numbers; resolves with the row's id and time once
+   * it has committed.
+   */
+  async insertResultText(kind: ResultKind, requestJson: string, resultJson: string, p: Provenance): Promise<{ id: string; createdAt: string }> {
+    const id = timeOrderedId();
+    const createdAt = now();
+    await this.group.add(() => this.st.insertResult.run(id, kind, requestJson, resultJson, p.scenarioId, p.seriesId, p.dataHash, p.programVersion, p.seed, createdAt));
+    return { id, createdAt };
+  }
+
   insertResult(kind: ResultKind, request: unknown, result: unknown, provenance: Provenance): ResultRecord {
-    const id = randomUUID();
+    const id = timeOrderedId();
     const createdAt = now();
     this.writeResult(id, kind, request, result, provenance, createdAt);
     return { id, kind, request, result, ...provenance, createdAt };
@@ -189,7 +204,7 @@ export class Repository {
   }
 
   createJob(kind: string, request: unknown): JobRecord {
-    const id = randomUUID();
+    const id = timeOrderedId();
     const t = now();
     this.st.insertJob.run(id, kind, JSON.stringify(request), t, t);
     return this.getJob(id)!;
@@ -226,7 +241,7 @@ export class Repository {
    * either both or neither. Returns null (storing nothing) if the job was cancelled meanwhile.
    */
   finishJob(jobId: string, kind: ResultKind, request: unknown, result: unknown, provenance: Provenance): ResultRecord | null {
-    const id = randomUUID();
+    const id = timeOrderedId();
     const createdAt = now();
     let stored = false;
     this.db.transaction(() => {

@@ -1,4 +1,9 @@
 import { afterAll, describe, expect, it } from "vitest";
+import { jsonText } from "../../server/http/json-safe.js";
+import { stabilityMargin } from "../../src/equilibria/margin.js";
+import { analyseStability } from "../../src/equilibria/stability.js";
+import { parseScenario } from "../../src/sim/scenario.js";
+import { unwrap } from "../helpers.js";
 import { deerCsv, finished, scenarioSpec, testRuntime } from "./helpers.js";
 
 // Every resource route: create, get, list, delete, with stored provenance. Problem bodies
@@ -97,6 +102,14 @@ describe("analyses, projections and comparisons", () => {
     expect(m.body.result.parameter).toBe("rule.maxRate");
     expect(m.body.scenarioId).toBeNull();
     expect((await api.get(`/api/v1/analyses/${m.body.id}`)).body.result).toEqual(m.body.result);
+    // The answer to the POST (assembled from the stored JSON text) is the stored record exactly.
+    for (const created of [s, m]) {
+      const { links, ...record } = created.body;
+      expect(links).toEqual({ self: `/api/v1/analyses/${created.body.id}`, table: `/api/v1/analyses/${created.body.id}/table.csv`, tableJson: `/api/v1/analyses/${created.body.id}/table.json` });
+      const { links: _l, ...stored } = (await api.get(`/api/v1/analyses/${created.body.id}`)).body;
+      expect(record).toEqual(stored);
+      expect(Object.keys(record)).toEqual(["id", "kind", "request", "result", "scenarioId", "seriesId", "dataHash", "programVersion", "seed", "createdAt"]);
+    }
     const t = await api.get(`/api/v1/analyses/${s.body.id}/table.csv`);
     expect(t.text.split("\r\n")[0]).toBe("equilibrium (stock units),verdict,dominant eigenvalue modulus,return time (years),oscillation period (years),operating");
     // A preview (a slider moving) answers 200 and stores nothing.
@@ -181,5 +194,17 @@ describe("the API index and the OpenAPI document (OpenAPI 3.1)", () => {
     const text = JSON.stringify(r.body.paths["/api/v1/rules"].post.requestBody);
     expect(text).toContain('"exclusiveMaximum":1');
     expect(r.body.paths["/api/v1/jobs/{id}/events"].get.responses["200"].content).toHaveProperty("text/event-stream");
+  });
+});
+
+describe("stability results are plain JSON", () => {
+  it("JSON.stringify of an analysis or a margin equals the jsonSafe text (no typed arrays, functions or built objects in it)", () => {
+    for (const rule of [{ kind: "threshold", lowerTrigger: 200, upperTrigger: 500, maxRate: 0.3, surveyLag: 2 }, { kind: "constant-catch", quota: 100, quotaChange: { maxIncrease: 0.1, maxDecrease: 0.1 } }]) {
+      const sc = unwrap(parseScenario({ model: { family: "ricker", params: { r: 1.5, K: 1000 }, delay: 1 }, rule, start: 600, horizon: 10 }));
+      const a = analyseStability(sc.loop);
+      expect(JSON.stringify(a)).toBe(jsonText(a));
+      const m = unwrap(stabilityMargin(sc.model, sc.rule, "model.params.r"));
+      expect(JSON.stringify(m)).toBe(jsonText(m));
+    }
   });
 });
