@@ -8,7 +8,8 @@ export interface GompertzParams {
 }
 
 /** Smallest density term, as a fraction of K, the log-linear map is evaluated at. */
-const FLOOR = 1e-12;
+export const GOMPERTZ_FLOOR = 1e-12;
+const FLOOR = GOMPERTZ_FLOOR;
 
 /**
  * Gompertz map in its log-linear (stochastic-Gompertz) form.

@@ -30,3 +30,16 @@ export function* blockStreams(seed: number, from: number): Generator<IntSource> 
     base.jump();
   }
 }
+
+/**
+ * The same streams as blockStreams, as pure-rand's four 32-bit state words
+ * [s01, s00, s11, s10] (what the WebAssembly kernel starts each block from).
+ */
+export function* blockStates(seed: number, from: number): Generator<readonly number[]> {
+  const base = xoroshiro128plus(seed | 0);
+  for (let b = 0; b < from; b++) base.jump();
+  for (;;) {
+    yield base.getState();
+    base.jump();
+  }
+}

@@ -2,9 +2,10 @@ import { closedLoop, type ClosedLoop, type StepNoise, type StepRecord } from "..
 import type { Rule } from "../policy/rule-spec.js";
 import { UNBOUNDED_FACTOR } from "./project.js";
 import { binOf, HISTOGRAM_BINS } from "./quantile-histogram.js";
-import { BLOCK_SIZE, blockCount, blockLength, blockStreams } from "./replicate-streams.js";
+import { BLOCK_SIZE, blockCount, blockLength, blockStates, blockStreams } from "./replicate-streams.js";
 import type { Scenario } from "./scenario.js";
 import type { Uncertainty } from "./uncertainty.js";
+import { kernelApplies, kernelBlocks } from "./wasm-projection.js";
 import { zigguratNormal, type IntSource } from "./ziggurat.js";
 
 /**
@@ -41,6 +42,13 @@ export interface ProjectionParts {
   readonly aavCounts: Uint32Array;
 }
 
+/**
+ * "auto": the WebAssembly kernel (wasm-projection.ts) when the loop's state is one number,
+ * this file's TypeScript loop otherwise; "typescript": always this file's loop (the
+ * reference the kernel is tested against).
+ */
+export type ProjectionEngine = "auto" | "typescript";
+
 const BELOW = 1;
 const QUASI = 2;
 const RECOVERED = 4;
@@ -65,7 +73,7 @@ const UNBOUNDED = 8;
  * Hall, ch. 7 (from memory); bias correction −σ²/2: Aitchison, J. & Brown, J. A. C. (1957).
  * The Lognormal Distribution. Cambridge University Press.
  */
-export function simulateBlocks(scenario: Scenario, uncertainty: Uncertainty, from: number, to: number, rule: Rule = scenario.rule): ProjectionParts {
+export function simulateBlocks(scenario: Scenario, uncertainty: Uncertainty, from: number, to: number, rule: Rule = scenario.rule, engine: ProjectionEngine = "auto"): ProjectionParts {
   const H = scenario.horizon;
   const K = scenario.model.params.K!;
   const parts: ProjectionParts = {
@@ -86,6 +94,10 @@ export function simulateBlocks(scenario: Scenario, uncertainty: Uncertainty, fro
     aavCounts: new Uint32Array(to - from),
   };
   const loops = uncertainty.models.map((m) => closedLoop(m, rule));
+  if (engine === "auto" && kernelApplies(loops[0]!)) {
+    kernelBlocks(parts, scenario, uncertainty, rule, loops, blockStates(uncertainty.seed, from));
+    return parts;
+  }
   const streams = blockStreams(uncertainty.seed, from);
   const state = new BlockState(Math.min(BLOCK_SIZE, uncertainty.replicates), loops[0]!.layout.dimension);
   for (let b = from; b < to; b++) {

@@ -32,6 +32,9 @@ const fn = new Float64Array(LAYERS);
   }
 }
 
+/** The layer tables (read-only), for the WebAssembly projection kernel's copy. */
+export const ZIGGURAT_TABLES = { kn, wn, fn } as const;
+
 /** A uniform in (0, 1) from one 32-bit draw (for the rare slow paths). */
 function open01(g: IntSource): number {
   return ((g.next() >>> 0) + 0.5) * 2.3283064365386963e-10;

@@ -1,0 +1,212 @@
+import { GOMPERTZ_FLOOR } from "../models/gompertz.js";
+import type { Model } from "../models/model-spec.js";
+import type { ClosedLoop } from "../policy/closed-loop.js";
+import type { Rule } from "../policy/rule-spec.js";
+import { UNBOUNDED_FACTOR } from "./project.js";
+import { BINS_PER_OCTAVE, HISTOGRAM_BINS, LOWEST_OCTAVE } from "./quantile-histogram.js";
+import { BLOCK_SIZE, blockLength } from "./replicate-streams.js";
+import type { Scenario } from "./scenario.js";
+import type { ProjectionParts } from "./stochastic-projection.js";
+import type { Uncertainty } from "./uncertainty.js";
+import { PROJECTION_KERNEL_WASM } from "./wasm/projection-kernel.generated.js";
+import { ZIGGURAT_TABLES } from "./ziggurat.js";
+
+/**
+ * The stochastic projection's inner loop compiled to WebAssembly (src/sim/wasm/
+ * projection-kernel.ts), for loops whose state is one number. It runs the replicate blocks
+ * exactly as runBlock in stochastic-projection.ts does (same random stream, same order of
+ * operations, same histograms and counters) about four times faster; only exp, log and pow
+ * come from another library, so the two agree to rounding.
+ */
+interface KernelExports {
+  readonly memory: WebAssembly.Memory;
+  reserve(bytes: number): number;
+  configure(cfg: number, ptr: number): void;
+  runBlock(slot: number, size: number, s01: number, s00: number, s11: number, s10: number): void;
+}
+
+const FAMILY_CODES: Record<string, number> = {
+  ricker: 0,
+  "beverton-holt": 1,
+  "discrete-logistic": 2,
+  gompertz: 3,
+  "allee-ricker": 4,
+  hassell: 5,
+  shepherd: 6,
+  "theta-logistic": 7,
+};
+
+let kernel: KernelExports | null = null;
+
+function instance(): KernelExports {
+  if (!kernel) {
+    const bin = atob(PROJECTION_KERNEL_WASM);
+    const bytes = new Uint8Array(bin.length);
+    for (let i = 0; i < bin.length; i++) bytes[i] = bin.charCodeAt(i);
+    const abort = () => {
+      throw new Error("projection kernel: internal error");
+    };
+    kernel = new WebAssembly.Instance(new WebAssembly.Module(bytes), { env: { abort } }).exports as unknown as KernelExports;
+  }
+  return kernel;
+}
+
+/** True when the kernel can run this loop: a one-number state and a family it knows. */
+export function kernelApplies(loop: ClosedLoop): boolean {
+  return loop.layout.dimension === 1 && FAMILY_CODES[loop.model.family] !== undefined;
+}
+
+/** The four numbers the kernel reads per parameter set (see production() in the kernel). */
+function modelParams(m: Model): [number, number, number, number] {
+  const p = m.params;
+  const K = p.K!;
+  switch (m.family) {
+    case "gompertz":
+      return [p.r!, K, GOMPERTZ_FLOOR * K, 0];
+    case "allee-ricker":
+      return [p.r!, K, p.A!, 0];
+    case "hassell":
+      return [p.R0!, K, p.beta!, (Math.pow(p.R0!, 1 / p.beta!) - 1) / K];
+    case "shepherd":
+      return [p.R0!, K, p.delta!, 0];
+    case "theta-logistic":
+      return [p.r!, K, p.theta!, 0];
+    case "beverton-holt":
+      return [p.R0!, K, 0, 0];
+    default:
+      return [p.r!, K, 0, 0];
+  }
+}
+
+/** The rule's kind code and settings (see quota() in the kernel). */
+function ruleSettings(rule: Rule): [number, number, number, number, number] {
+  switch (rule.kind) {
+    case "constant-catch":
+      return [1, rule.quota, 0, 0, 0];
+    case "constant-rate":
+      return [2, rule.rate, 0, 0, 0];
+    case "constant-escapement":
+      return [3, rule.escapement, 0, 0, 0];
+    case "threshold":
+      return [4, rule.lowerTrigger, rule.upperTrigger, rule.maxRate, rule.upperTrigger - rule.lowerTrigger];
+    default:
+      return [0, 0, 0, 0, 0];
+  }
+}
+
+/** Byte offsets of every array in the kernel's region, 8-byte aligned. */
+class Layout {
+  bytes = 0;
+  take(n: number): number {
+    const at = this.bytes;
+    this.bytes += Math.ceil(n / 8) * 8;
+    return at;
+  }
+}
+
+/**
+ * Runs blocks [from, to) in the kernel, adding into `parts` (fresh, from simulateBlocks) and
+ * taking each block's generator state from `states` in block order.
+ */
+export function kernelBlocks(parts: ProjectionParts, scenario: Scenario, u: Uncertainty, rule: Rule, loops: readonly ClosedLoop[], states: Iterator<readonly number[]>): void {
+  const k = instance();
+  const H = scenario.horizon;
+  const K = scenario.model.params.K!;
+  const [from, to] = parts.blocks;
+  const nb = to - from;
+  const B = Math.min(BLOCK_SIZE, u.replicates);
+  const M = loops.length;
+  const L = new Layout();
+  const at = {
+    cfg: L.take(32 * 8),
+    ptr: L.take(32 * 4),
+    models: L.take(M * 32),
+    kn: L.take(128 * 4),
+    wn: L.take(128 * 8),
+    fn: L.take(128 * 8),
+    n: L.take(B * 8),
+    eps: L.take(B * 8),
+    prevCatch: L.take(B * 8),
+    sumCatch: L.take(B * 8),
+    sumChange: L.take(B * 8),
+    flags: L.take(B),
+    pick: L.take(B * 4),
+    aCounts: L.take(parts.abundanceCounts.length * 4),
+    cCounts: L.take(parts.catchCounts.length * 4),
+    aRange: L.take(parts.abundanceRange.length * 8),
+    cRange: L.take(parts.catchRange.length * 8),
+    below: L.take((H + 1) * 4),
+    recovery: L.take((H + 1) * 4),
+    counters: L.take(4 * 4),
+    catchTotals: L.take(nb * 8),
+    aavSums: L.take(nb * 8),
+    aavCounts: L.take(nb * 4),
+    z: L.take(B * 24),
+  };
+  const base = k.reserve(L.bytes);
+  if (base === 0) throw new Error("projection kernel: out of memory");
+  const buf = k.memory.buffer;
+  new Uint8Array(buf, base, L.bytes).fill(0);
+  const f64 = (off: number, len: number) => new Float64Array(buf, base + off, len);
+  const u32 = (off: number, len: number) => new Uint32Array(buf, base + off, len);
+  const [ruleKind, q1, q2, q3, q4] = ruleSettings(rule);
+  const sdP = u.processSd;
+  const rho = u.processAutocorrelation;
+  f64(at.cfg, 27).set([
+    H,
+    M,
+    FAMILY_CODES[scenario.model.family]!,
+    ruleKind,
+    q1,
+    q2,
+    q3,
+    q4,
+    rule.stocking,
+    rule.timing === "before" ? 1 : 0,
+    sdP,
+    rho,
+    sdP * Math.sqrt(1 - rho * rho),
+    0.5 * sdP * sdP,
+    u.observationSd,
+    0.5 * u.observationSd * u.observationSd,
+    u.implementationSd,
+    0.5 * u.implementationSd * u.implementationSd,
+    u.limit,
+    u.quasiExtinction,
+    u.recoveryTarget,
+    scenario.start[0]!,
+    1 / K,
+    UNBOUNDED_FACTOR * K,
+    HISTOGRAM_BINS,
+    (1023 + LOWEST_OCTAVE) * BINS_PER_OCTAVE,
+    HISTOGRAM_BINS - 1,
+  ]);
+  const models = f64(at.models, M * 4);
+  loops.forEach((loop, i) => models.set(modelParams(loop.model), i * 4));
+  new Int32Array(buf, base + at.kn, 128).set(ZIGGURAT_TABLES.kn);
+  f64(at.wn, 128).set(ZIGGURAT_TABLES.wn);
+  f64(at.fn, 128).set(ZIGGURAT_TABLES.fn);
+  f64(at.aRange, parts.abundanceRange.length).set(parts.abundanceRange);
+  f64(at.cRange, parts.catchRange.length).set(parts.catchRange);
+  const order = ["models", "kn", "wn", "fn", "n", "eps", "prevCatch", "sumCatch", "sumChange", "flags", "pick", "aCounts", "cCounts", "aRange", "cRange", "below", "recovery", "counters", "catchTotals", "aavSums", "aavCounts", "z"] as const;
+  u32(at.ptr, order.length).set(order.map((name) => base + at[name]));
+  k.configure(base + at.cfg, base + at.ptr);
+  for (let b = from; b < to; b++) {
+    const s = states.next().value as readonly number[];
+    k.runBlock(b - from, blockLength(b, u.replicates), s[0]!, s[1]!, s[2]!, s[3]!);
+  }
+  parts.abundanceCounts.set(u32(at.aCounts, parts.abundanceCounts.length));
+  parts.catchCounts.set(u32(at.cCounts, parts.catchCounts.length));
+  parts.abundanceRange.set(f64(at.aRange, parts.abundanceRange.length));
+  parts.catchRange.set(f64(at.cRange, parts.catchRange.length));
+  parts.belowLimitByYear.set(u32(at.below, H + 1));
+  parts.recoveryByYear.set(u32(at.recovery, H + 1));
+  const c = u32(at.counters, 4);
+  parts.everBelowLimit = c[0]!;
+  parts.everQuasiExtinct = c[1]!;
+  parts.unbounded = c[2]!;
+  parts.zeroCatchYears = c[3]!;
+  parts.catchTotals.set(f64(at.catchTotals, nb));
+  parts.aavSums.set(f64(at.aavSums, nb));
+  parts.aavCounts.set(u32(at.aavCounts, nb));
+}
