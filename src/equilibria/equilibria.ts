@@ -52,53 +52,24 @@ export function findEquilibria(loop: ClosedLoop, options: EquilibriumOptions = {
   const gridPoints = options.gridPoints ?? 2000;
   const tol = 1e-9 * K;
   const roots: { n: number; double: boolean }[] = [];
-  // The grid is the merge of the log grid (61 points from 1e-10·K) and the even grid, both
-  // increasing, visited in one pass: each point is examined once its right neighbour is known.
-  const logTop = Math.min(K, upper);
-  const logPoint = (i: number) => (i <= 60 ? logTop * Math.pow(10, -10 + (10 * i) / 60) : Infinity);
-  let li = 0;
-  let ei = 1;
-  let lv = logPoint(0);
-  let xPrev = 0;
-  let fPrev = 0;
-  let havePrev = false;
-  let x = 0;
-  let f = phi(0);
-  for (;;) {
-    let xNext = Number.NaN;
-    while (li <= 60 || ei <= gridPoints) {
-      const ev = ei <= gridPoints ? (upper * ei) / gridPoints : Infinity;
-      let v: number;
-      if (lv < ev) {
-        v = lv;
-        lv = logPoint(++li);
-      } else {
-        v = ev;
-        ei++;
-      }
-      if (v > x) {
-        xNext = v;
-        break;
-      }
-    }
-    const hasNext = !Number.isNaN(xNext);
-    const fNext = hasNext ? phi(xNext) : 0;
-    if (f === 0) roots.push({ n: x, double: false });
-    if (hasNext && f * fNext < 0) roots.push({ n: brentRoot(phi, x, xNext), double: false });
-    if (havePrev && hasNext && f !== 0) {
-      const extremum = (f > fPrev && f >= fNext && f < 0) || (f < fPrev && f <= fNext && f > 0);
+  const grid = scanGrid(upper, Math.min(K, upper), gridPoints);
+  const m = grid.length;
+  const fs = new Float64Array(m);
+  for (let i = 0; i < m; i++) fs[i] = phi(grid[i]!);
+  for (let i = 0; i < m; i++) {
+    const f = fs[i]!;
+    if (f === 0) roots.push({ n: grid[i]!, double: false });
+    if (i + 1 < m && f * fs[i + 1]! < 0) roots.push({ n: brentRoot(phi, grid[i]!, grid[i + 1]!), double: false });
+    if (i > 0 && i + 1 < m && f !== 0) {
+      const prev = fs[i - 1]!;
+      const next = fs[i + 1]!;
+      const extremum = (f > prev && f >= next && f < 0) || (f < prev && f <= next && f > 0);
       if (extremum && Math.abs(f) < 1e3 * tol) {
         const sign = f < 0 ? 1 : -1;
-        const best = maximiseOnInterval((v) => sign * phi(v), xPrev, xNext, 16);
+        const best = maximiseOnInterval((v) => sign * phi(v), grid[i - 1]!, grid[i + 1]!, 16);
         if (Math.abs(best.value) <= tol) roots.push({ n: best.x, double: true });
       }
     }
-    if (!hasNext) break;
-    xPrev = x;
-    fPrev = f;
-    havePrev = true;
-    x = xNext;
-    f = fNext;
   }
   roots.sort((a, b) => a.n - b.n);
   const merged: { n: number; double: boolean }[] = [];
@@ -112,6 +83,35 @@ export function findEquilibria(loop: ClosedLoop, options: EquilibriumOptions = {
   }
   const equilibria = merged.map(({ n, double }) => describe(loop, n, double));
   return { equilibria, searchedUpTo: upper, noPositiveEquilibrium: !equilibria.some((e) => e.abundance > 0) };
+}
+
+const grids = new Map<string, Float64Array>();
+
+/**
+ * The search grid: 0, then the merge of the log grid (61 points from 1e-10·logTop to logTop)
+ * and the even grid (upper·i/points, i = 1 … points), increasing, without repeats. Grids are
+ * kept (read-only) for the last few (upper, logTop, points), since most searches of a session
+ * share their K.
+ */
+function scanGrid(upper: number, logTop: number, points: number): Float64Array {
+  const key = `${upper} ${logTop} ${points}`;
+  const hit = grids.get(key);
+  if (hit) return hit;
+  const out: number[] = [0];
+  let li = 0;
+  let ei = 1;
+  while (li <= 60 || ei <= points) {
+    const lv = li <= 60 ? logTop * Math.pow(10, -10 + (10 * li) / 60) : Infinity;
+    const ev = ei <= points ? (upper * ei) / points : Infinity;
+    const v = lv < ev ? lv : ev;
+    if (lv < ev) li++;
+    else ei++;
+    if (v > out[out.length - 1]!) out.push(v);
+  }
+  const grid = Float64Array.from(out);
+  if (grids.size >= 16) grids.delete(grids.keys().next().value!);
+  grids.set(key, grid);
+  return grid;
 }
 
 function describe(loop: ClosedLoop, n: number, double: boolean): Equilibrium {
