@@ -87,8 +87,11 @@ export function createAnalysisPool(threads: number): AnalysisPool {
         if (!r.ok) return r;
       }
       const blocks = projectionBlocks(uncertainty.value);
-      // A few chunks per worker, so progress moves and the last chunks balance the load.
-      const chunks = Math.min(blocks, threads * 4);
+      // A few chunks per worker, so progress moves and the last chunks balance the load, but
+      // none much under 2.5 million population-steps (about 60 ms): each chunk carries its own
+      // histograms, and small chunks spend more on those than on the simulation.
+      const steps = uncertainty.value.replicates * scenario.value.horizon;
+      const chunks = Math.min(blocks, threads * 4, Math.max(threads, Math.ceil(steps / 2.5e6)));
       const tasks: ProjectionTask[] = [];
       for (let c = 0; c < chunks; c++) {
         const from = Math.floor((c * blocks) / chunks);

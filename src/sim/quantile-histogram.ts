@@ -43,18 +43,29 @@ function lowerEdge(i: number): number {
 }
 
 /**
+ * The bins [first, last] that every value in [lo, hi] (0 ≤ lo ≤ hi) falls in: binOf is
+ * increasing, so a year's histogram is zero outside the span of its smallest and largest
+ * value, and the sums and scans below need only that span.
+ */
+export function binSpan(lo: number, hi: number, scale: number): [number, number] {
+  return [binOf(lo, scale), binOf(hi, scale)];
+}
+
+/**
  * Percentiles (in %, increasing) of the values counted in
  * `counts[offset … offset + HISTOGRAM_BINS)`, in the abundance unit (times `K`), read in
- * one pass. An empty histogram gives zeros.
+ * one pass over the bins of `span` (all of them unless given; every count must lie in it).
+ * An empty histogram gives zeros.
  */
-export function histogramPercentiles(counts: Uint32Array, offset: number, levels: readonly number[], K: number): number[] {
+export function histogramPercentiles(counts: Uint32Array, offset: number, levels: readonly number[], K: number, span: readonly [number, number] = [0, HISTOGRAM_BINS - 1]): number[] {
+  const [from, to] = span;
   let total = 0;
-  for (let i = 0; i < HISTOGRAM_BINS; i++) total += counts[offset + i]!;
+  for (let i = from; i <= to; i++) total += counts[offset + i]!;
   const out = levels.map(() => 0);
   if (total === 0) return out;
   let cum = 0;
   let l = 0;
-  for (let i = 0; i < HISTOGRAM_BINS && l < levels.length; i++) {
+  for (let i = from; i <= to && l < levels.length; i++) {
     const c = counts[offset + i]!;
     if (c === 0) continue;
     while (l < levels.length && cum + c >= (levels[l]! / 100) * total) {

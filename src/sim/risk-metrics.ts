@@ -1,4 +1,4 @@
-import { HISTOGRAM_BINS, histogramPercentiles } from "./quantile-histogram.js";
+import { binSpan, HISTOGRAM_BINS, histogramPercentiles } from "./quantile-histogram.js";
 import type { Scenario } from "./scenario.js";
 import type { ProjectionParts } from "./stochastic-projection.js";
 import type { Uncertainty } from "./uncertainty.js";
@@ -78,13 +78,14 @@ function clamp(v: number, lo: number, hi: number): number {
   return v < lo ? lo : v > hi ? hi : v;
 }
 
-/** Sums year t's histogram over all parts into `into`. */
-function yearHistogram(parts: readonly ProjectionParts[], which: "abundanceCounts" | "catchCounts", t: number, into: Uint32Array): Uint32Array {
-  into.fill(0);
+/** Sums year t's histogram over all parts into `into`, over the bins of `span` only (the rest of `into` is left as it was). */
+function yearHistogram(parts: readonly ProjectionParts[], which: "abundanceCounts" | "catchCounts", t: number, into: Uint32Array, span: readonly [number, number]): Uint32Array {
+  const [from, to] = span;
+  into.fill(0, from, to + 1);
   const off = t * HISTOGRAM_BINS;
   for (const p of parts) {
     const c = p[which];
-    for (let i = 0; i < HISTOGRAM_BINS; i++) into[i]! += c[off + i]!;
+    for (let i = from; i <= to; i++) into[i]! += c[off + i]!;
   }
   return into;
 }
@@ -105,18 +106,26 @@ export function summariseProjection(list: readonly ProjectionParts[], scenario: 
   const levels = [...PERCENTILE_LEVELS];
   const abundance = levels.map(() => new Array<number>(H + 1).fill(0));
   const caught = levels.map(() => new Array<number>(H).fill(0));
+  // Each year's counts lie in the bins of its smallest to its largest value (binSpan).
   const year = new Uint32Array(HISTOGRAM_BINS);
+  const scale = 1 / K;
   for (let t = 0; t <= H; t++) {
-    const q = histogramPercentiles(yearHistogram(parts, "abundanceCounts", t, year), 0, levels, K);
     const [lo, hi] = yearRange(parts, "abundanceRange", t);
+    const span = binSpan(lo, hi, scale);
+    const q = histogramPercentiles(yearHistogram(parts, "abundanceCounts", t, year, span), 0, levels, K, span);
     q.forEach((v, i) => (abundance[i]![t] = clamp(v, lo, hi)));
   }
   const pooled = new Uint32Array(HISTOGRAM_BINS);
+  let pooledFrom = HISTOGRAM_BINS - 1;
+  let pooledTo = 0;
   for (let t = 0; t < H; t++) {
-    const q = histogramPercentiles(yearHistogram(parts, "catchCounts", t, year), 0, levels, K);
     const [lo, hi] = yearRange(parts, "catchRange", t);
+    const span = binSpan(lo, hi, scale);
+    const q = histogramPercentiles(yearHistogram(parts, "catchCounts", t, year, span), 0, levels, K, span);
     q.forEach((v, i) => (caught[i]![t] = clamp(v, lo, hi)));
-    for (let b = 0; b < HISTOGRAM_BINS; b++) pooled[b]! += year[b]!;
+    for (let b = span[0]; b <= span[1]; b++) pooled[b]! += year[b]!;
+    pooledFrom = Math.min(pooledFrom, span[0]);
+    pooledTo = Math.max(pooledTo, span[1]);
   }
   // Floating-point sums in block order, so any split across workers adds up identically.
   let catchTotal = 0;
@@ -173,7 +182,7 @@ export function summariseProjection(list: readonly ProjectionParts[], scenario: 
       quasiExtinction: estimate(everQuasi, n),
       recovery: { ...estimate(recovered, n), medianYears, meanYears: recovered > 0 ? yearsSum / recovered : null },
       meanCatch: H > 0 ? catchTotal / (n * H) : 0,
-      medianCatch: H > 0 ? histogramPercentiles(pooled, 0, [50], K)[0]! : 0,
+      medianCatch: H > 0 ? histogramPercentiles(pooled, 0, [50], K, [pooledFrom, pooledTo])[0]! : 0,
       averageAnnualVariation: aavCount > 0 ? aav / aavCount : null,
       zeroCatchFraction: H > 0 ? zeroYears / (n * H) : 0,
     },

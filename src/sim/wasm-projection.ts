@@ -3,7 +3,7 @@ import type { Model } from "../models/model-spec.js";
 import type { ClosedLoop } from "../policy/closed-loop.js";
 import type { Rule } from "../policy/rule-spec.js";
 import { UNBOUNDED_FACTOR } from "./project.js";
-import { BINS_PER_OCTAVE, HISTOGRAM_BINS, LOWEST_OCTAVE } from "./quantile-histogram.js";
+import { BINS_PER_OCTAVE, binSpan, HISTOGRAM_BINS, LOWEST_OCTAVE } from "./quantile-histogram.js";
 import { BLOCK_SIZE, blockLength } from "./replicate-streams.js";
 import type { Scenario } from "./scenario.js";
 import type { ProjectionParts } from "./stochastic-projection.js";
@@ -195,10 +195,20 @@ export function kernelBlocks(parts: ProjectionParts, scenario: Scenario, u: Unce
     const s = states.next().value as readonly number[];
     k.runBlock(b - from, blockLength(b, u.replicates), s[0]!, s[1]!, s[2]!, s[3]!);
   }
-  parts.abundanceCounts.set(u32(at.aCounts, parts.abundanceCounts.length));
-  parts.catchCounts.set(u32(at.cCounts, parts.catchCounts.length));
   parts.abundanceRange.set(f64(at.aRange, parts.abundanceRange.length));
   parts.catchRange.set(f64(at.cRange, parts.catchRange.length));
+  // Each year's counts lie in the span of its smallest and largest value: copy only that.
+  const copySpans = (from: Uint32Array, into: Uint32Array, range: Float64Array, years: number) => {
+    for (let t = 0; t < years; t++) {
+      const lo = range[2 * t]!;
+      const hi = range[2 * t + 1]!;
+      if (!(lo <= hi)) continue;
+      const [a, b] = binSpan(lo, hi, 1 / K);
+      into.set(from.subarray(t * HISTOGRAM_BINS + a, t * HISTOGRAM_BINS + b + 1), t * HISTOGRAM_BINS + a);
+    }
+  };
+  copySpans(u32(at.aCounts, parts.abundanceCounts.length), parts.abundanceCounts, parts.abundanceRange, H + 1);
+  copySpans(u32(at.cCounts, parts.catchCounts.length), parts.catchCounts, parts.catchRange, H);
   parts.belowLimitByYear.set(u32(at.below, H + 1));
   parts.recoveryByYear.set(u32(at.recovery, H + 1));
   const c = u32(at.counters, 4);
