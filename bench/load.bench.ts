@@ -4,7 +4,7 @@
 // The p95 of the response times is computed from every response (autocannon's own summary
 // has no p95). Target: p95 < 50 ms.
 import { spawn } from "node:child_process";
-import { mkdtempSync } from "node:fs";
+import { mkdtempSync, rmSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { fileURLToPath } from "node:url";
@@ -12,6 +12,8 @@ import autocannon from "autocannon";
 
 const CONNECTIONS = 100;
 const SECONDS = 10;
+/** The run also stops after this many answers, whichever comes first (bounded in count and time). */
+const MAX_REQUESTS = 100_000;
 
 function body(i: number): string {
   return JSON.stringify({
@@ -30,8 +32,9 @@ function percentile(sorted: number[], p: number): number {
   return sorted[k]!;
 }
 
-async function startServer(): Promise<{ url: string; stop: () => void }> {
-  const db = join(mkdtempSync(join(tmpdir(), "yieldloop-load-")), "load.db");
+async function startServer(): Promise<{ url: string; stop: () => Promise<void> }> {
+  const dir = mkdtempSync(join(tmpdir(), "yieldloop-load-"));
+  const db = join(dir, "load.db");
   const cli = fileURLToPath(new URL("../server/cli/main.ts", import.meta.url));
   const child = spawn(process.execPath, ["--import", "tsx", cli, "serve", "--port", "0", "--db", db, "--workers", "1"], { stdio: ["ignore", "pipe", "inherit"] });
   const url = await new Promise<string>((resolve, reject) => {
@@ -43,7 +46,15 @@ async function startServer(): Promise<{ url: string; stop: () => void }> {
     });
     child.once("exit", (code) => reject(new Error(`server exited (${code})`)));
   });
-  return { url, stop: () => child.kill("SIGTERM") };
+  const stop = () =>
+    new Promise<void>((resolve) => {
+      child.once("exit", () => {
+        rmSync(dir, { recursive: true, force: true });
+        resolve();
+      });
+      child.kill("SIGTERM");
+    });
+  return { url, stop };
 }
 
 function run(url: string, seconds: number, latencies: number[] | null): Promise<autocannon.Result> {
@@ -58,7 +69,11 @@ function run(url: string, seconds: number, latencies: number[] | null): Promise<
       },
       (err, result) => (err ? reject(err) : resolve(result)),
     );
-    if (latencies) instance.on("response", (_c: unknown, _status: number, _bytes: number, time: number) => latencies.push(time));
+    if (latencies) {
+      instance.on("response", (_c: unknown, _status: number, _bytes: number, time: number) => {
+        if (latencies.push(time) === MAX_REQUESTS) instance.stop();
+      });
+    }
   });
 }
 
@@ -75,6 +90,7 @@ export async function loadBench(): Promise<void> {
         impl: "yieldloop",
         connections: CONNECTIONS,
         seconds: SECONDS,
+        maxRequests: MAX_REQUESTS,
         requests: latencies.length,
         requestsPerSecond: result.requests.average,
         non2xx: result.non2xx,
@@ -84,6 +100,6 @@ export async function loadBench(): Promise<void> {
       }),
     );
   } finally {
-    server.stop();
+    await server.stop();
   }
 }
