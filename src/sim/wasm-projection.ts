@@ -142,6 +142,7 @@ export function kernelBlocks(parts: ProjectionParts, scenario: Scenario, u: Unce
     aavSums: L.take(nb * 8),
     aavCounts: L.take(nb * 4),
     z: L.take(B * 24),
+    alive: L.take(B * 4),
   };
   const base = k.reserve(L.bytes);
   if (base === 0) throw new Error("projection kernel: out of memory");
@@ -188,7 +189,7 @@ export function kernelBlocks(parts: ProjectionParts, scenario: Scenario, u: Unce
   f64(at.fn, 128).set(ZIGGURAT_TABLES.fn);
   f64(at.aRange, parts.abundanceRange.length).set(parts.abundanceRange);
   f64(at.cRange, parts.catchRange.length).set(parts.catchRange);
-  const order = ["models", "kn", "wn", "fn", "n", "eps", "prevCatch", "sumCatch", "sumChange", "flags", "pick", "aCounts", "cCounts", "aRange", "cRange", "below", "recovery", "counters", "catchTotals", "aavSums", "aavCounts", "z"] as const;
+  const order = ["models", "kn", "wn", "fn", "n", "eps", "prevCatch", "sumCatch", "sumChange", "flags", "pick", "aCounts", "cCounts", "aRange", "cRange", "below", "recovery", "counters", "catchTotals", "aavSums", "aavCounts", "z", "alive"] as const;
   u32(at.ptr, order.length).set(order.map((name) => base + at[name]));
   k.configure(base + at.cfg, base + at.ptr);
   for (let b = from; b < to; b++) {

@@ -82,6 +82,7 @@ let pCatchTotals: usize = 0;
 let pAavSums: usize = 0;
 let pAavCounts: usize = 0;
 let pZ: usize = 0;
+let pAlive: usize = 0;
 
 const BELOW: u32 = 1;
 const QUASI: u32 = 2;
@@ -148,6 +149,7 @@ export function configure(cfg: usize, ptr: usize): void {
   pAavSums = load<u32>(ptr, 76);
   pAavCounts = load<u32>(ptr, 80);
   pZ = load<u32>(ptr, 84);
+  pAlive = load<u32>(ptr, 88);
 }
 
 // Marsaglia, G. & Tsang, W. W. (2000). The ziggurat method for generating random variables.
@@ -318,6 +320,12 @@ export function runBlock(slot: i32, size: i32, a01: u32, a00: u32, a11: u32, a10
   const changes = pSumChange;
   const prevs = pPrevCatch;
   const zs = pZ;
+  const alive = pAlive;
+  // A replicate at 0 with no catch and no stocking stays at 0 with no catch for good (the
+  // production of 0 is 0): from then on its years are counted in bulk, not simulated. Its
+  // draws are still made (fillNormals), so the other replicates' numbers do not change.
+  const absorbing = A == 0 && target > 0;
+  let aliveCount = size;
   const draws: usize = (hasP ? 1 : 0) + (hasO ? 1 : 0) + (hasI ? 1 : 0);
   const stride = draws << 3;
   const oP: usize = 0;
@@ -333,6 +341,7 @@ export function runBlock(slot: i32, size: i32, a01: u32, a00: u32, a11: u32, a10
     store<f64>(sums + o, 0);
     store<f64>(changes + o, 0);
     store<u8>(flags + <usize>k, n0 >= target ? <u8>RECOVERED : 0);
+    store<i32>(alive + (<usize>k << 2), k);
   }
   const a0 = pACounts + (<usize>binOf(n0, sc, first, last) << 2);
   store<u32>(a0, load<u32>(a0) + <u32>size);
@@ -355,10 +364,24 @@ export function runBlock(slot: i32, size: i32, a01: u32, a00: u32, a11: u32, a10
     // The year's normal deviates first, in the order the TypeScript loop draws them (per
     // replicate: process, survey, catch); the loop after uses them.
     if (draws > 0) fillNormals(zs, size * <i32>draws, 8);
-    let z = zs;
+    // The absorbed replicates' year, all at once: N = 0, C = 0.
+    const absorbed = <u32>(size - aliveCount);
+    if (absorbed > 0) {
+      store<u32>(aOff, load<u32>(aOff) + absorbed);
+      store<u32>(cOff, load<u32>(cOff) + absorbed);
+      zeroYears += absorbed;
+      if (0 < lim) belowCount += absorbed;
+      if (0 < aMin) aMin = 0;
+      if (0 > aMax) aMax = 0;
+      if (0 < cMin) cMin = 0;
+      if (0 > cMax) cMax = 0;
+    }
     const later = t > 0;
-    for (let k = 0; k < size; k++) {
+    let kept = 0;
+    for (let j = 0; j < aliveCount; j++) {
+      const k = load<i32>(alive + (<usize>j << 2));
       const o = <usize>k << 3;
+      const z = zs + <usize>k * stride;
       let lp: f64 = 0;
       let sm: f64 = 1;
       let im: f64 = 1;
@@ -369,7 +392,6 @@ export function runBlock(slot: i32, size: i32, a01: u32, a00: u32, a11: u32, a10
       }
       if (hasO) sm = Math.exp(sO * load<f64>(z + oO) - hO);
       if (hasI) im = Math.exp(sI * load<f64>(z + oI) - hI);
-      z += stride;
       const p = models + (single ? 0 : <usize>load<i32>(picks + (<usize>k << 2)) << 5);
       // nextWith of src/policy/closed-loop.ts, branch-free (select, min, max): which
       // replicates have collapsed, fallen below the limit or recovered is unpredictable from
@@ -407,11 +429,16 @@ export function runBlock(slot: i32, size: i32, a01: u32, a00: u32, a11: u32, a10
       zeroYears += <u32>(c == 0);
       bump(aOff + (<usize>binOf(next, sc, first, last) << 2));
       bump(cOff + (<usize>binOf(c, sc, first, last) << 2));
-      aMin = min<f64>(aMin, next);
-      aMax = max<f64>(aMax, next);
-      cMin = min<f64>(cMin, c);
-      cMax = max<f64>(cMax, c);
+      // Branches, not f64.min/max (which V8 expands into a longer sequence for NaN and −0):
+      // a new smallest or largest value is rare, so these are well predicted.
+      if (next < aMin) aMin = next;
+      if (next > aMax) aMax = next;
+      if (c < cMin) cMin = c;
+      if (c > cMax) cMax = c;
+      store<i32>(alive + (<usize>kept << 2), k);
+      kept += select<i32>(0, 1, absorbing && next == 0 && c == 0);
     }
+    aliveCount = kept;
     store<u32>(belowAt, load<u32>(belowAt) + belowCount);
     store<u32>(recoveryAt, load<u32>(recoveryAt) + recoveryCount);
     store<f64>(pARange + (<usize>(2 * t + 2) << 3), aMin);
