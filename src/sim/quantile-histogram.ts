@@ -43,37 +43,41 @@ function lowerEdge(i: number): number {
 }
 
 /**
- * The bins [first, last] that every value in [lo, hi] (0 ≤ lo ≤ hi) falls in: binOf is
- * increasing, so a year's histogram is zero outside the span of its smallest and largest
- * value, and the sums and scans below need only that span.
+ * The bins [first, last] of the positive values in [lo, hi] (first > last when lo > hi:
+ * none). binOf is increasing and sends only 0 to bin 0, so a year's histogram is zero
+ * outside bin 0 and the span of its smallest and largest positive value: the sums and scans
+ * below need only those bins.
  */
-export function binSpan(lo: number, hi: number, scale: number): [number, number] {
-  return [binOf(lo, scale), binOf(hi, scale)];
+export function positiveSpan(lo: number, hi: number, scale: number): [number, number] {
+  return lo <= hi && lo > 0 ? [binOf(lo, scale), binOf(hi, scale)] : [1, 0];
 }
 
 /**
  * Percentiles (in %, increasing) of the values counted in
  * `counts[offset … offset + HISTOGRAM_BINS)`, in the abundance unit (times `K`), read in
- * one pass over the bins of `span` (all of them unless given; every count must lie in it).
- * An empty histogram gives zeros.
+ * one pass over bin 0 (the zeros) and the bins of `span` (all others unless given; every
+ * count must lie in those). An empty histogram gives zeros.
  */
-export function histogramPercentiles(counts: Uint32Array, offset: number, levels: readonly number[], K: number, span: readonly [number, number] = [0, HISTOGRAM_BINS - 1]): number[] {
-  const [from, to] = span;
-  let total = 0;
+export function histogramPercentiles(counts: Uint32Array, offset: number, levels: readonly number[], K: number, span: readonly [number, number] = [1, HISTOGRAM_BINS - 1]): number[] {
+  const from = Math.max(1, span[0]);
+  const to = span[1];
+  let total = counts[offset]!;
   for (let i = from; i <= to; i++) total += counts[offset + i]!;
   const out = levels.map(() => 0);
   if (total === 0) return out;
   let cum = 0;
   let l = 0;
-  for (let i = from; i <= to && l < levels.length; i++) {
-    const c = counts[offset + i]!;
-    if (c === 0) continue;
+  const visit = (bin: number) => {
+    const c = counts[offset + bin]!;
+    if (c === 0) return;
     while (l < levels.length && cum + c >= (levels[l]! / 100) * total) {
-      out[l] = valueInBin(i, (levels[l]! / 100) * total - cum, c) * K;
+      out[l] = valueInBin(bin, (levels[l]! / 100) * total - cum, c) * K;
       l++;
     }
     cum += c;
-  }
+  };
+  visit(0);
+  for (let i = from; i <= to && l < levels.length; i++) visit(i);
   for (; l < levels.length; l++) out[l] = lowerEdge(LAST);
   return out;
 }

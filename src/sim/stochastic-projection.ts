@@ -23,6 +23,9 @@ export interface ProjectionParts {
   /** Smallest and largest N[t] and C[t] per year (percentiles are clamped into them, so a point mass is exact). */
   readonly abundanceRange: Float64Array;
   readonly catchRange: Float64Array;
+  /** Smallest positive N[t] and C[t] per year (Number.MAX_VALUE when none): with the largest, the bins a year's positive values occupy (bin 0 holds the zeros). */
+  readonly abundancePositiveMin: Float64Array;
+  readonly catchPositiveMin: Float64Array;
   /** Replicates with N[t] < limit, per year t = 0 … horizon. */
   readonly belowLimitByYear: Uint32Array;
   /** Replicates first at or above the recovery target in year t = 0 … horizon. */
@@ -83,6 +86,8 @@ export function simulateBlocks(scenario: Scenario, uncertainty: Uncertainty, fro
     catchCounts: new Uint32Array(H * HISTOGRAM_BINS),
     abundanceRange: emptyRange(H + 1),
     catchRange: emptyRange(H),
+    abundancePositiveMin: new Float64Array(H + 1).fill(Number.MAX_VALUE),
+    catchPositiveMin: new Float64Array(H).fill(Number.MAX_VALUE),
     belowLimitByYear: new Uint32Array(H + 1),
     recoveryByYear: new Uint32Array(H + 1),
     everBelowLimit: 0,
@@ -187,6 +192,7 @@ function runBlock(parts: ProjectionParts, slot: number, size: number, g: IntSour
   const cRange = parts.catchRange;
   if (start < aRange[0]!) aRange[0] = start;
   if (start > aRange[1]!) aRange[1] = start;
+  if (start < parts.abundancePositiveMin[0]! && start > 0) parts.abundancePositiveMin[0] = start;
   if (start < limit) parts.belowLimitByYear[0]! += size;
   if (start >= recoveryTarget) parts.recoveryByYear[0]! += size;
   const rec: StepRecord = { survey: 0, quota: 0, catch: 0, stocking: 0 };
@@ -203,6 +209,8 @@ function runBlock(parts: ProjectionParts, slot: number, size: number, g: IntSour
     let aMax = aRange[2 * t + 3]!;
     let cMin = cRange[2 * t]!;
     let cMax = cRange[2 * t + 1]!;
+    let aPos = parts.abundancePositiveMin[t + 1]!;
+    let cPos = parts.catchPositiveMin[t]!;
     for (let k = 0; k < size; k++) {
       let lp = 0;
       let sm = 1;
@@ -247,7 +255,11 @@ function runBlock(parts: ProjectionParts, slot: number, size: number, g: IntSour
       if (next > aMax) aMax = next;
       if (c < cMin) cMin = c;
       if (c > cMax) cMax = c;
+      if (next < aPos && next > 0) aPos = next;
+      if (c < cPos && c > 0) cPos = c;
     }
+    parts.abundancePositiveMin[t + 1] = aPos;
+    parts.catchPositiveMin[t] = cPos;
     aRange[2 * t + 2] = aMin;
     aRange[2 * t + 3] = aMax;
     cRange[2 * t] = cMin;

@@ -3,7 +3,7 @@ import type { Model } from "../models/model-spec.js";
 import type { ClosedLoop } from "../policy/closed-loop.js";
 import type { Rule } from "../policy/rule-spec.js";
 import { UNBOUNDED_FACTOR } from "./project.js";
-import { BINS_PER_OCTAVE, binSpan, HISTOGRAM_BINS, LOWEST_OCTAVE } from "./quantile-histogram.js";
+import { BINS_PER_OCTAVE, HISTOGRAM_BINS, LOWEST_OCTAVE, positiveSpan } from "./quantile-histogram.js";
 import { BLOCK_SIZE, blockLength } from "./replicate-streams.js";
 import type { Scenario } from "./scenario.js";
 import type { ProjectionParts } from "./stochastic-projection.js";
@@ -143,6 +143,8 @@ export function kernelBlocks(parts: ProjectionParts, scenario: Scenario, u: Unce
     aavCounts: L.take(nb * 4),
     z: L.take(B * 24),
     alive: L.take(B * 4),
+    aPos: L.take((H + 1) * 8),
+    cPos: L.take(H * 8),
   };
   const base = k.reserve(L.bytes);
   if (base === 0) throw new Error("projection kernel: out of memory");
@@ -189,7 +191,9 @@ export function kernelBlocks(parts: ProjectionParts, scenario: Scenario, u: Unce
   f64(at.fn, 128).set(ZIGGURAT_TABLES.fn);
   f64(at.aRange, parts.abundanceRange.length).set(parts.abundanceRange);
   f64(at.cRange, parts.catchRange.length).set(parts.catchRange);
-  const order = ["models", "kn", "wn", "fn", "n", "eps", "prevCatch", "sumCatch", "sumChange", "flags", "pick", "aCounts", "cCounts", "aRange", "cRange", "below", "recovery", "counters", "catchTotals", "aavSums", "aavCounts", "z", "alive"] as const;
+  f64(at.aPos, H + 1).set(parts.abundancePositiveMin);
+  f64(at.cPos, H).set(parts.catchPositiveMin);
+  const order = ["models", "kn", "wn", "fn", "n", "eps", "prevCatch", "sumCatch", "sumChange", "flags", "pick", "aCounts", "cCounts", "aRange", "cRange", "below", "recovery", "counters", "catchTotals", "aavSums", "aavCounts", "z", "alive", "aPos", "cPos"] as const;
   u32(at.ptr, order.length).set(order.map((name) => base + at[name]));
   k.configure(base + at.cfg, base + at.ptr);
   for (let b = from; b < to; b++) {
@@ -198,18 +202,19 @@ export function kernelBlocks(parts: ProjectionParts, scenario: Scenario, u: Unce
   }
   parts.abundanceRange.set(f64(at.aRange, parts.abundanceRange.length));
   parts.catchRange.set(f64(at.cRange, parts.catchRange.length));
-  // Each year's counts lie in the span of its smallest and largest value: copy only that.
-  const copySpans = (from: Uint32Array, into: Uint32Array, range: Float64Array, years: number) => {
+  parts.abundancePositiveMin.set(f64(at.aPos, H + 1));
+  parts.catchPositiveMin.set(f64(at.cPos, H));
+  // Each year's counts lie in bin 0 (the zeros) and the bins of its positive values: copy only those.
+  const copySpans = (from: Uint32Array, into: Uint32Array, range: Float64Array, positiveMin: Float64Array, years: number) => {
     for (let t = 0; t < years; t++) {
-      const lo = range[2 * t]!;
-      const hi = range[2 * t + 1]!;
-      if (!(lo <= hi)) continue;
-      const [a, b] = binSpan(lo, hi, 1 / K);
-      into.set(from.subarray(t * HISTOGRAM_BINS + a, t * HISTOGRAM_BINS + b + 1), t * HISTOGRAM_BINS + a);
+      const off = t * HISTOGRAM_BINS;
+      into[off] = from[off]!;
+      const [a, b] = positiveSpan(positiveMin[t]!, range[2 * t + 1]!, 1 / K);
+      if (a <= b) into.set(from.subarray(off + a, off + b + 1), off + a);
     }
   };
-  copySpans(u32(at.aCounts, parts.abundanceCounts.length), parts.abundanceCounts, parts.abundanceRange, H + 1);
-  copySpans(u32(at.cCounts, parts.catchCounts.length), parts.catchCounts, parts.catchRange, H);
+  copySpans(u32(at.aCounts, parts.abundanceCounts.length), parts.abundanceCounts, parts.abundanceRange, parts.abundancePositiveMin, H + 1);
+  copySpans(u32(at.cCounts, parts.catchCounts.length), parts.catchCounts, parts.catchRange, parts.catchPositiveMin, H);
   parts.belowLimitByYear.set(u32(at.below, H + 1));
   parts.recoveryByYear.set(u32(at.recovery, H + 1));
   const c = u32(at.counters, 4);

@@ -54,6 +54,8 @@ function expectAgree(wasm: ProjectionParts, ts: ProjectionParts): void {
   close(wasm.aavSums, ts.aavSums);
   close(wasm.abundanceRange, ts.abundanceRange);
   close(wasm.catchRange, ts.catchRange);
+  close(wasm.abundancePositiveMin, ts.abundancePositiveMin);
+  close(wasm.catchPositiveMin, ts.catchPositiveMin);
 }
 
 describe("WebAssembly projection kernel", () => {

@@ -83,6 +83,8 @@ let pAavSums: usize = 0;
 let pAavCounts: usize = 0;
 let pZ: usize = 0;
 let pAlive: usize = 0;
+let pAPos: usize = 0;
+let pCPos: usize = 0;
 
 const BELOW: u32 = 1;
 const QUASI: u32 = 2;
@@ -150,6 +152,8 @@ export function configure(cfg: usize, ptr: usize): void {
   pAavCounts = load<u32>(ptr, 80);
   pZ = load<u32>(ptr, 84);
   pAlive = load<u32>(ptr, 88);
+  pAPos = load<u32>(ptr, 92);
+  pCPos = load<u32>(ptr, 96);
 }
 
 // Marsaglia, G. & Tsang, W. W. (2000). The ziggurat method for generating random variables.
@@ -347,6 +351,7 @@ export function runBlock(slot: i32, size: i32, a01: u32, a00: u32, a11: u32, a10
   store<u32>(a0, load<u32>(a0) + <u32>size);
   if (n0 < load<f64>(pARange, 0)) store<f64>(pARange, n0, 0);
   if (n0 > load<f64>(pARange, 8)) store<f64>(pARange, n0, 8);
+  if (n0 < load<f64>(pAPos) && n0 > 0) store<f64>(pAPos, n0);
   if (n0 < lim) store<u32>(pBelow, load<u32>(pBelow) + <u32>size);
   if (n0 >= target) store<u32>(pRecovery, load<u32>(pRecovery) + <u32>size);
   let zeroYears: u32 = 0;
@@ -359,6 +364,8 @@ export function runBlock(slot: i32, size: i32, a01: u32, a00: u32, a11: u32, a10
     let aMax = load<f64>(pARange + (<usize>(2 * t + 3) << 3));
     let cMin = load<f64>(pCRange + (<usize>(2 * t) << 3));
     let cMax = load<f64>(pCRange + (<usize>(2 * t + 1) << 3));
+    let aPos = load<f64>(pAPos + (<usize>(t + 1) << 3));
+    let cPos = load<f64>(pCPos + (<usize>t << 3));
     let belowCount: u32 = 0;
     let recoveryCount: u32 = 0;
     // The year's normal deviates first, in the order the TypeScript loop draws them (per
@@ -435,10 +442,15 @@ export function runBlock(slot: i32, size: i32, a01: u32, a00: u32, a11: u32, a10
       if (next > aMax) aMax = next;
       if (c < cMin) cMin = c;
       if (c > cMax) cMax = c;
+      // Smallest positive value (the test on the rare new minimum first, so it predicts well).
+      if (next < aPos && next > 0) aPos = next;
+      if (c < cPos && c > 0) cPos = c;
       store<i32>(alive + (<usize>kept << 2), k);
       kept += select<i32>(0, 1, absorbing && next == 0 && c == 0);
     }
     aliveCount = kept;
+    store<f64>(pAPos + (<usize>(t + 1) << 3), aPos);
+    store<f64>(pCPos + (<usize>t << 3), cPos);
     store<u32>(belowAt, load<u32>(belowAt) + belowCount);
     store<u32>(recoveryAt, load<u32>(recoveryAt) + recoveryCount);
     store<f64>(pARange + (<usize>(2 * t + 2) << 3), aMin);
