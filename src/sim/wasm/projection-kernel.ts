@@ -233,6 +233,11 @@ function fillNormals(z: usize, count: i32, stride: usize): void {
   s11 = a11;
 }
 
+// Called through the function table, so the optimiser keeps it a function of its own, its
+// few values in registers, instead of inlining it into runBlock's crowded body (measured
+// about 5% faster).
+let fill: (z: usize, count: i32, stride: usize) => void = fillNormals;
+
 @inline function normal(): f64 {
   const j = nextInt();
   const i = j & 127;
@@ -370,7 +375,7 @@ export function runBlock(slot: i32, size: i32, a01: u32, a00: u32, a11: u32, a10
     let recoveryCount: u32 = 0;
     // The year's normal deviates first, in the order the TypeScript loop draws them (per
     // replicate: process, survey, catch); the loop after uses them.
-    if (draws > 0) fillNormals(zs, size * <i32>draws, 8);
+    if (draws > 0) fill(zs, size * <i32>draws, 8);
     // The absorbed replicates' year, all at once: N = 0, C = 0.
     const absorbed = <u32>(size - aliveCount);
     if (absorbed > 0) {
