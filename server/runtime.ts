@@ -8,6 +8,7 @@ import { JobRunner } from "./jobs/job-runner.js";
 import { openDatabase, type Db } from "./store/database.js";
 import { Repository } from "./store/repository.js";
 import { createAnalysisPool, type AnalysisPool } from "./workers/pool.js";
+import { startQuickAnalyses } from "./workers/quick-analyses.js";
 
 export const PROGRAM_VERSION: string = (JSON.parse(readFileSync(fileURLToPath(new URL("../package.json", import.meta.url)), "utf8")) as { version: string }).version;
 
@@ -40,7 +41,8 @@ export function createRuntime(o: RuntimeOptions): Runtime {
   repo.interruptUnfinishedJobs();
   const jobs = new JobRunner(repo);
   const pool = createAnalysisPool(o.workers ?? 2);
-  const app = createApp({ repo, jobs, pool, version: PROGRAM_VERSION, limits: o.limits ?? DEFAULT_LIMITS, ...(o.token ? { token: o.token } : {}), ...(o.staticDir ? { staticDir: o.staticDir } : {}) });
+  const quick = startQuickAnalyses();
+  const app = createApp({ repo, jobs, pool, quick, version: PROGRAM_VERSION, limits: o.limits ?? DEFAULT_LIMITS, ...(o.token ? { token: o.token } : {}), ...(o.staticDir ? { staticDir: o.staticDir } : {}) });
   return {
     app,
     db,
@@ -51,6 +53,7 @@ export function createRuntime(o: RuntimeOptions): Runtime {
       jobs.cancelAll();
       await jobs.idle().catch(() => undefined);
       await pool.close();
+      await quick.close();
       db.close();
     },
   };

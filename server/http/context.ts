@@ -7,6 +7,7 @@ import { issueFromZod } from "../../src/zod-issue.js";
 import type { JobRunner } from "../jobs/job-runner.js";
 import type { Repository } from "../store/repository.js";
 import type { AnalysisPool } from "../workers/pool.js";
+import type { QuickAnalyses } from "../workers/quick-analyses.js";
 import { issueProblem, sendProblem } from "./problem.js";
 import { pageSchema } from "./schemas.js";
 
@@ -21,6 +22,8 @@ export interface AppContext {
   readonly repo: Repository;
   readonly jobs: JobRunner;
   readonly pool: AnalysisPool;
+  /** The thread for quick analyses (stability, margin). */
+  readonly quick: QuickAnalyses;
   readonly version: string;
   readonly limits: Limits;
 }

@@ -1,8 +1,6 @@
 // /api/v1/fits, /analyses, /projections, /comparisons: results with their provenance.
 // Quick analyses (stability, margin) answer 201 at once; long work answers 202 with a job.
 import { Router, type Request, type Response } from "express";
-import { stabilityMargin } from "../../src/equilibria/margin.js";
-import { analyseStability } from "../../src/equilibria/stability.js";
 import { parseRule } from "../../src/policy/rule-spec.js";
 import { families } from "../../src/models/families.js";
 import { parseModel, type Model } from "../../src/models/model-spec.js";
@@ -83,7 +81,7 @@ export function resultRoutes(ctx: AppContext): Router {
     const { scenario: _sc, ...rest } = body;
     const b = parseWith(analysisBodySchema, rest, res);
     if (!b) return;
-    const { model, rule } = input.scenario;
+    const { rule } = input.scenario;
     const request = { ...b, scenario: input.spec };
     if (b.kind === "robust") {
       const fit = ctx.repo.getResult("fit", b.fitId);
@@ -99,22 +97,16 @@ export function resultRoutes(ctx: AppContext): Router {
       return;
     }
     if (b.kind === "stability" || b.kind === "margin") {
-      let result: unknown;
-      if (b.kind === "stability") result = analyseStability(input.scenario.loop);
-      else {
-        const m = stabilityMargin(model, rule, b.parameter);
-        if (!m.ok) return sendIssue(res, m.issue);
-        result = m.value;
-      }
+      // Computed on the quick-analysis thread, which answers with the result's JSON text.
+      const done = await ctx.quick.run(b.kind, scenarioOnly(input.spec), b.kind === "margin" ? b.parameter : undefined);
+      if (!done.ok) return sendIssue(res, done.issue);
+      const resultJson = done.json;
+      const requestJson = JSON.stringify(request);
       if (b.store === false) {
-        res.status(200).json({ kind: "analysis", request, result: jsonSafe(result), stored: false });
+        res.status(200).type("json").send(`{"kind":"analysis","request":${requestJson},"result":${resultJson},"stored":false}`);
         return;
       }
       // The JSON text is made once, for the row and for the answer.
-      const requestJson = JSON.stringify(request);
-      // A stability analysis or a margin is plain numbers, strings and arrays (a test checks
-      // that this text equals jsonText's), so the fast JSON.stringify without a replacer will do.
-      const resultJson = JSON.stringify(result);
       const p = provenance(input);
       const { id, createdAt } = await ctx.repo.insertResultText("analysis", requestJson, resultJson, p);
       const head = JSON.stringify({ id, kind: "analysis" });
