@@ -51,9 +51,12 @@ function instance(): KernelExports {
   return kernel;
 }
 
-/** True when the kernel can run this loop: a one-number state and a family it knows. */
+/** The rule kinds quota() in the kernel knows. */
+const RULE_KINDS_IN_KERNEL: ReadonlySet<string> = new Set(["no-harvest", "constant-catch", "constant-rate", "constant-escapement", "threshold"]);
+
+/** True when the kernel can run this loop: a one-number state, and a family and a rule kind it knows. */
 export function kernelApplies(loop: ClosedLoop): boolean {
-  return loop.layout.dimension === 1 && FAMILY_CODES[loop.model.family] !== undefined;
+  return loop.layout.dimension === 1 && FAMILY_CODES[loop.model.family] !== undefined && RULE_KINDS_IN_KERNEL.has(loop.rule.kind);
 }
 
 /** The four numbers the kernel reads per parameter set (see production() in the kernel). */
@@ -89,8 +92,10 @@ function ruleSettings(rule: Rule): [number, number, number, number, number] {
       return [3, rule.escapement, 0, 0, 0];
     case "threshold":
       return [4, rule.lowerTrigger, rule.upperTrigger, rule.maxRate, rule.upperTrigger - rule.lowerTrigger];
-    default:
+    case "no-harvest":
       return [0, 0, 0, 0, 0];
+    default:
+      throw new Error(`projection kernel: no quota for rule kind ${(rule as { kind: string }).kind}`);
   }
 }
 
