@@ -90,7 +90,7 @@ const grids = new Map<string, Float64Array>();
 /**
  * The search grid: 0, then the merge of the log grid (61 points from 1e-10·logTop to logTop)
  * and the even grid (upper·i/points, i = 1 … points), increasing, without repeats. Grids are
- * kept (read-only) for the last few (upper, logTop, points), since most searches of a session
+ * kept (read-only) for the last few (upper, logTop, points), since most searches one after another
  * share their K.
  */
 function scanGrid(upper: number, logTop: number, points: number): Float64Array {
