@@ -12,6 +12,7 @@ import { compareModels } from "../src/fit/compare-models.js";
 import { parametricBootstrap } from "../src/fit/bootstrap.js";
 import { parseSeriesCsv } from "../src/fit/series.js";
 import type { Series } from "../src/fit/series.js";
+import { bestOf } from "./best-of.js";
 import { havePythonNumpy, runReference } from "./python.js";
 
 function benchSeries(): Series {
@@ -31,19 +32,15 @@ function benchSeries(): Series {
   return { years: ab.map((_, i) => i), count: ab.map((a) => 0.01 * a * Math.exp(0.15 * standardNormal(u))), catch: catches, stocking: ab.map(() => 0), cv: ab.map(() => null), indices: {}, warnings: [] };
 }
 
-export function fitBench(): void {
+export async function fitBench(): Promise<void> {
   const series = benchSeries();
   const p = fitProblem(series, { family: "ricker" });
   if (!p.ok) throw new Error(JSON.stringify(p.issue));
   const problem = p.value;
   let opt = optimiseFit(problem, 1, 0);
   for (let w = 0; w < 20; w++) opt = optimiseFit(problem, 1, 0);
-  let seconds = Infinity;
-  for (let trial = 0; trial < 50; trial++) {
-    const t0 = process.hrtime.bigint();
-    opt = optimiseFit(problem, 1, 0);
-    seconds = Math.min(seconds, Number(process.hrtime.bigint() - t0) / 1e9);
-  }
+  const { seconds, last } = await bestOf(50, () => optimiseFit(problem, 1, 0));
+  opt = last;
   const ev = problem.evaluate(problem.natural(opt.x))!;
   // The same objective as scipy's: the sum of squared log residuals at the optimum.
   let sse = 0;

@@ -5,6 +5,7 @@ import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { juryVerdict } from "../src/equilibria/jury-verdict.js";
 import { seededUniform } from "../src/sim/rng.js";
+import { bestOf } from "./best-of.js";
 import { havePythonNumpy, runReference } from "./python.js";
 
 /** Monic real degree-6 polynomials from roots of modulus U(0, 1.08): about 60% stable. */
@@ -39,22 +40,18 @@ export function randomPolynomials(count: number, seed: number): number[][] {
   return out;
 }
 
-export function juryBench(): void {
+export async function juryBench(): Promise<void> {
   const polys = randomPolynomials(10_000, 20261201);
   const flat = polys.map((p) => Float64Array.from(p));
   let verdicts: number[] = [];
   for (let w = 0; w < 20; w++) verdicts = flat.map((p) => juryVerdict(p));
-  // Best of 10 trials of 20 passes over the 10,000 polynomials (the machine is shared, so the
-  // best trial is the least disturbed one; the references report their best trial too).
+  // Best of 10 trials of 20 passes over the 10,000 polynomials.
   const repeats = 20;
-  let seconds = Infinity;
-  let stable = 0;
-  for (let trial = 0; trial < 10; trial++) {
-    stable = 0;
-    const t0 = process.hrtime.bigint();
-    for (let r = 0; r < repeats; r++) for (let i = 0; i < flat.length; i++) if (juryVerdict(flat[i]!) === 1) stable++;
-    seconds = Math.min(seconds, Number(process.hrtime.bigint() - t0) / 1e9);
-  }
+  const { seconds, last: stable } = await bestOf(10, () => {
+    let s = 0;
+    for (let r = 0; r < repeats; r++) for (let i = 0; i < flat.length; i++) if (juryVerdict(flat[i]!) === 1) s++;
+    return s;
+  });
   const rate = (repeats * flat.length) / seconds;
   console.log(JSON.stringify({ bench: "jury-verdicts", impl: "yieldloop", polynomials: flat.length, repeats, trials: 10, bestSeconds: seconds, verdictsPerSecond: rate, stableFraction: stable / (repeats * flat.length), target: 1e7 }));
   if (!havePythonNumpy()) {

@@ -3,6 +3,7 @@
 // sd 0.4, with 1 and 2 workers, against bench/reference/projection_numpy.py on the same
 // scenario. Both sides compute the per-year percentiles and the risk metrics.
 import { createAnalysisPool } from "../server/workers/pool.js";
+import { bestOf } from "./best-of.js";
 import { havePythonNumpy, runReference } from "./python.js";
 
 const REPLICATES = 100_000;
@@ -22,14 +23,8 @@ export async function projectionBench(): Promise<void> {
     const pool = createAnalysisPool(threads);
     // A small warm-up run so thread start-up and compilation are not timed.
     await pool.projection({ ...request, uncertainty: { ...request.uncertainty, replicates: 20_000 } });
-    let seconds = Infinity;
-    let last = await pool.projection(request);
-    // Best of five runs (the machine is shared); the numpy reference reports its best of three.
-    for (let trial = 0; trial < 5; trial++) {
-      const t0 = process.hrtime.bigint();
-      last = await pool.projection(request);
-      seconds = Math.min(seconds, Number(process.hrtime.bigint() - t0) / 1e9);
-    }
+    // Best of five runs; the numpy reference reports its best of three.
+    const { seconds, last } = await bestOf(5, () => pool.projection(request));
     await pool.close();
     if (!last.ok) throw new Error(JSON.stringify(last.issue));
     const r = last.value.risk;

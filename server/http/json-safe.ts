@@ -16,12 +16,3 @@ export function jsonSafe(value: unknown): unknown {
   return out;
 }
 
-function replacer(key: string, v: unknown): unknown {
-  if (DROP.has(key) || typeof v === "function") return undefined;
-  return ArrayBuffer.isView(v) ? Array.from(v as unknown as ArrayLike<number>) : v;
-}
-
-/** JSON.stringify(jsonSafe(value)) in one pass (JSON.stringify itself writes a non-finite number as null). */
-export function jsonText(value: unknown): string {
-  return JSON.stringify(value, replacer);
-}

@@ -174,19 +174,19 @@ export class Repository {
   async insertResultText(kind: ResultKind, requestJson: string, resultJson: string, p: Provenance): Promise<{ id: string; createdAt: string }> {
     const id = timeOrderedId();
     const createdAt = now();
-    await this.group.add(() => this.st.insertResult.run(id, kind, requestJson, resultJson, p.scenarioId, p.seriesId, p.dataHash, p.programVersion, p.seed, createdAt));
+    await this.group.add(() => this.writeResult(id, kind, requestJson, resultJson, p, createdAt));
     return { id, createdAt };
   }
 
   insertResult(kind: ResultKind, request: unknown, result: unknown, provenance: Provenance): ResultRecord {
     const id = timeOrderedId();
     const createdAt = now();
-    this.writeResult(id, kind, request, result, provenance, createdAt);
+    this.writeResult(id, kind, JSON.stringify(request), JSON.stringify(result), provenance, createdAt);
     return { id, kind, request, result, ...provenance, createdAt };
   }
 
-  private writeResult(id: string, kind: ResultKind, request: unknown, result: unknown, p: Provenance, createdAt: string): void {
-    this.st.insertResult.run(id, kind, JSON.stringify(request), JSON.stringify(result), p.scenarioId, p.seriesId, p.dataHash, p.programVersion, p.seed, createdAt);
+  private writeResult(id: string, kind: ResultKind, requestJson: string, resultJson: string, p: Provenance, createdAt: string): void {
+    this.st.insertResult.run(id, kind, requestJson, resultJson, p.scenarioId, p.seriesId, p.dataHash, p.programVersion, p.seed, createdAt);
   }
 
   getResult(kind: ResultKind, id: string): ResultRecord | null {
@@ -247,7 +247,7 @@ export class Repository {
     this.db.transaction(() => {
       const job = this.st.getJob.get(jobId) as Row | undefined;
       if (!job || job.status !== "running") return;
-      this.writeResult(id, kind, request, result, provenance, createdAt);
+      this.writeResult(id, kind, JSON.stringify(request), JSON.stringify(result), provenance, createdAt);
       this.st.jobDone.run(id, createdAt, jobId);
       stored = true;
     })();

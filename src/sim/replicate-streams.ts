@@ -23,12 +23,7 @@ export function blockLength(b: number, replicates: number): number {
  * ACM Trans. Math. Softw. 47: 36 (the jump polynomial; pure-rand's jump()).
  */
 export function* blockStreams(seed: number, from: number): Generator<IntSource> {
-  const base = xoroshiro128plus(seed | 0);
-  for (let b = 0; b < from; b++) base.jump();
-  for (;;) {
-    yield base.clone();
-    base.jump();
-  }
+  yield* blockGenerators(seed, from);
 }
 
 /**
@@ -36,10 +31,14 @@ export function* blockStreams(seed: number, from: number): Generator<IntSource> 
  * [s01, s00, s11, s10] (what the WebAssembly kernel starts each block from).
  */
 export function* blockStates(seed: number, from: number): Generator<readonly number[]> {
+  for (const g of blockGenerators(seed, from)) yield g.getState();
+}
+
+function* blockGenerators(seed: number, from: number) {
   const base = xoroshiro128plus(seed | 0);
   for (let b = 0; b < from; b++) base.jump();
   for (;;) {
-    yield base.getState();
+    yield base.clone();
     base.jump();
   }
 }

@@ -122,6 +122,7 @@ export function kernelBlocks(parts: ProjectionParts, scenario: Scenario, u: Unce
   const B = Math.min(BLOCK_SIZE, u.replicates);
   const M = loops.length;
   const L = new Layout();
+  // Every array the kernel uses; after cfg and ptr, in the order configure() reads their pointers.
   const at = {
     cfg: L.take(32 * 8),
     ptr: L.take(32 * 4),
@@ -198,7 +199,8 @@ export function kernelBlocks(parts: ProjectionParts, scenario: Scenario, u: Unce
   f64(at.cRange, parts.catchRange.length).set(parts.catchRange);
   f64(at.aPos, H + 1).set(parts.abundancePositiveMin);
   f64(at.cPos, H).set(parts.catchPositiveMin);
-  const order = ["models", "kn", "wn", "fn", "n", "eps", "prevCatch", "sumCatch", "sumChange", "flags", "pick", "aCounts", "cCounts", "aRange", "cRange", "below", "recovery", "counters", "catchTotals", "aavSums", "aavCounts", "z", "alive", "aPos", "cPos"] as const;
+  // The pointers, in the order configure() reads them: every array after cfg and ptr, as laid out.
+  const order = (Object.keys(at) as (keyof typeof at)[]).slice(2);
   u32(at.ptr, order.length).set(order.map((name) => base + at[name]));
   k.configure(base + at.cfg, base + at.ptr);
   for (let b = from; b < to; b++) {

@@ -187,50 +187,12 @@ function edge(i: i32, u: i32): f64 {
   return 0; // not reached
 }
 
-/**
- * `count` standard normal deviates to z, z + stride, …: the generator state and the tables'
- * addresses live in locals here (wasm globals are reloaded from memory on every use), and
- * go back to the globals only around the rare slow path.
- */
+/** `count` standard normal deviates to z, z + stride, … (zigguratNormal's draws). */
 function fillNormals(z: usize, count: i32, stride: usize): void {
-  let a00 = s00;
-  let a01 = s01;
-  let a10 = s10;
-  let a11 = s11;
-  const kn = pKn;
-  const wn = pWn;
   for (let k = 0; k < count; k++) {
-    const j = <i32>(a00 + a10);
-    const b0 = a10 ^ a00;
-    const b1 = a11 ^ a01;
-    const o00 = a00;
-    const o01 = a01;
-    a00 = (o00 << 24) ^ (o01 >>> 8) ^ b0 ^ (b0 << 16);
-    a01 = (o01 << 24) ^ (o00 >>> 8) ^ b1 ^ ((b1 << 16) | (b0 >>> 16));
-    a10 = (b1 << 5) ^ (b0 >>> 27);
-    a11 = (b0 << 5) ^ (b1 >>> 27);
-    const i = j & 127;
-    const u = j >> 7;
-    let v: f64;
-    if (abs<i32>(u) < load<i32>(kn + (<usize>i << 2))) v = <f64>u * load<f64>(wn + (<usize>i << 3));
-    else {
-      s00 = a00;
-      s01 = a01;
-      s10 = a10;
-      s11 = a11;
-      v = edge(i, u);
-      a00 = s00;
-      a01 = s01;
-      a10 = s10;
-      a11 = s11;
-    }
-    store<f64>(z, v);
+    store<f64>(z, normal());
     z += stride;
   }
-  s00 = a00;
-  s01 = a01;
-  s10 = a10;
-  s11 = a11;
 }
 
 // Called through the function table, so the optimiser keeps it a function of its own, its
