@@ -13,7 +13,7 @@ const target = join(root, "src/sim/wasm/projection-kernel.generated.ts");
 const dir = mkdtempSync(join(tmpdir(), "yieldloop-kernel-"));
 const out = join(dir, "kernel.wasm");
 try {
-  const { error, stderr } = await asc.main([source, "-O3", "--runtime", "stub", "--noAssert", "--outFile", out]);
+  const { error, stderr } = await asc.main([source, "-O3", "--runtime", "stub", "--noAssert", "--enable", "simd", "--outFile", out]);
   if (error) {
     process.stderr.write(stderr.toString());
     process.stderr.write(`the projection kernel did not compile: ${error.message}\n`);

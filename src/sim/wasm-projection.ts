@@ -2,6 +2,7 @@ import { GOMPERTZ_FLOOR } from "../models/gompertz.js";
 import type { Model } from "../models/model-spec.js";
 import type { ClosedLoop } from "../policy/closed-loop.js";
 import type { Rule } from "../policy/rule-spec.js";
+import { expTable } from "./exp-table.js";
 import { UNBOUNDED_FACTOR } from "./project.js";
 import { BINS_PER_OCTAVE, HISTOGRAM_BINS, LOWEST_OCTAVE, positiveSpan } from "./quantile-histogram.js";
 import { BLOCK_SIZE, blockLength } from "./replicate-streams.js";
@@ -10,6 +11,8 @@ import type { ProjectionParts } from "./stochastic-projection.js";
 import type { Uncertainty } from "./uncertainty.js";
 import { PROJECTION_KERNEL_WASM } from "./wasm/projection-kernel.generated.js";
 import { ZIGGURAT_TABLES } from "./ziggurat.js";
+
+const EXP_TABLE = expTable();
 
 /**
  * The stochastic projection's inner loop compiled to WebAssembly (src/sim/wasm/
@@ -99,12 +102,12 @@ function ruleSettings(rule: Rule): [number, number, number, number, number] {
   }
 }
 
-/** Byte offsets of every array in the kernel's region, 8-byte aligned. */
+/** Byte offsets of every array in the kernel's region, 16-byte aligned (the kernel reads two lanes at once). */
 class Layout {
   bytes = 0;
   take(n: number): number {
     const at = this.bytes;
-    this.bytes += Math.ceil(n / 8) * 8;
+    this.bytes += Math.ceil(n / 16) * 16;
     return at;
   }
 }
@@ -119,7 +122,8 @@ export function kernelBlocks(parts: ProjectionParts, scenario: Scenario, u: Unce
   const K = scenario.model.params.K!;
   const [from, to] = parts.blocks;
   const nb = to - from;
-  const B = Math.min(BLOCK_SIZE, u.replicates);
+  // Per-replicate arrays hold an even number of replicates (the kernel takes them in pairs).
+  const B = (Math.min(BLOCK_SIZE, u.replicates) + 1) & ~1;
   const M = loops.length;
   const L = new Layout();
   // Every array the kernel uses; after cfg and ptr, in the order configure() reads their pointers.
@@ -135,7 +139,7 @@ export function kernelBlocks(parts: ProjectionParts, scenario: Scenario, u: Unce
     prevCatch: L.take(B * 8),
     sumCatch: L.take(B * 8),
     sumChange: L.take(B * 8),
-    flags: L.take(B),
+    flags: L.take(B * 8),
     pick: L.take(B * 4),
     aCounts: L.take(parts.abundanceCounts.length * 4),
     cCounts: L.take(parts.catchCounts.length * 4),
@@ -148,9 +152,9 @@ export function kernelBlocks(parts: ProjectionParts, scenario: Scenario, u: Unce
     aavSums: L.take(nb * 8),
     aavCounts: L.take(nb * 4),
     z: L.take(B * 24),
-    alive: L.take(B * 4),
     aPos: L.take((H + 1) * 8),
     cPos: L.take(H * 8),
+    exp: L.take(256 * 8),
   };
   const base = k.reserve(L.bytes);
   if (base === 0) throw new Error("projection kernel: out of memory");
@@ -192,6 +196,7 @@ export function kernelBlocks(parts: ProjectionParts, scenario: Scenario, u: Unce
   ]);
   const models = f64(at.models, M * 4);
   loops.forEach((loop, i) => models.set(modelParams(loop.model), i * 4));
+  new BigUint64Array(buf, base + at.exp, 256).set(EXP_TABLE);
   new Int32Array(buf, base + at.kn, 128).set(ZIGGURAT_TABLES.kn);
   f64(at.wn, 128).set(ZIGGURAT_TABLES.wn);
   f64(at.fn, 128).set(ZIGGURAT_TABLES.fn);

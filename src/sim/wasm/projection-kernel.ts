@@ -8,6 +8,10 @@
 // the family's own file in src/models/ (the source is cited there), and each quota the
 // equation of its file in src/policy/.
 //
+// The replicates are taken two at a time in the lanes of WebAssembly's 128-bit SIMD values
+// (f64x2), exp included (vexp); a block of odd size runs its last replicate in both lanes of
+// the last pair and takes the copy's counts off again.
+//
 // Memory: the caller reserves one region (reserve) and lays every array out in it; the
 // pointers come in through configure. Nothing here allocates.
 
@@ -82,14 +86,14 @@ let pCatchTotals: usize = 0;
 let pAavSums: usize = 0;
 let pAavCounts: usize = 0;
 let pZ: usize = 0;
-let pAlive: usize = 0;
 let pAPos: usize = 0;
 let pCPos: usize = 0;
+let pExp: usize = 0;
 
-const BELOW: u32 = 1;
-const QUASI: u32 = 2;
-const RECOVERED: u32 = 4;
-const UNBOUNDED: u32 = 8;
+const BELOW: i64 = 1;
+const QUASI: i64 = 2;
+const RECOVERED: i64 = 4;
+const UNBOUNDED: i64 = 8;
 
 /** The start of a region of `bytes` bytes after this module's own data, grown as needed. */
 export function reserve(bytes: usize): usize {
@@ -151,9 +155,9 @@ export function configure(cfg: usize, ptr: usize): void {
   pAavSums = load<u32>(ptr, 76);
   pAavCounts = load<u32>(ptr, 80);
   pZ = load<u32>(ptr, 84);
-  pAlive = load<u32>(ptr, 88);
-  pAPos = load<u32>(ptr, 92);
-  pCPos = load<u32>(ptr, 96);
+  pAPos = load<u32>(ptr, 88);
+  pCPos = load<u32>(ptr, 92);
+  pExp = load<u32>(ptr, 96);
 }
 
 // Marsaglia, G. & Tsang, W. W. (2000). The ziggurat method for generating random variables.
@@ -187,18 +191,51 @@ function edge(i: i32, u: i32): f64 {
   return 0; // not reached
 }
 
-/** `count` standard normal deviates to z, z + stride, … (zigguratNormal's draws). */
-function fillNormals(z: usize, count: i32, stride: usize): void {
-  for (let k = 0; k < count; k++) {
-    store<f64>(z, normal());
-    z += stride;
+/**
+ * The year's standard normal deviates (zigguratNormal's draws, in the TypeScript loop's
+ * order: per replicate, process, survey, catch), stored by kind: deviate d of replicate k
+ * at z + d·plane + 8k, so that the loop after reads two replicates' deviates at once.
+ */
+function fillNormals(z: usize, size: i32, draws: i32, plane: usize): void {
+  // The generator as two 64-bit words in locals: the same xoroshiro128+ step as nextInt.
+  let a: u64 = (<u64>s01 << 32) | <u64>s00;
+  let b: u64 = (<u64>s11 << 32) | <u64>s10;
+  const kn = pKn;
+  const wn = pWn;
+  for (let k = 0; k < size; k++) {
+    let at = z + (<usize>k << 3);
+    for (let d = 0; d < draws; d++) {
+      const j = <i32>(a + b);
+      const x = b ^ a;
+      a = rotl<u64>(a, 24) ^ x ^ (x << 16);
+      b = rotl<u64>(x, 37);
+      const i = j & 127;
+      const u = j >> 7;
+      let v: f64;
+      if (abs<i32>(u) < load<i32>(kn + (<usize>i << 2))) {
+        v = <f64>u * load<f64>(wn + (<usize>i << 3));
+      } else {
+        s00 = <u32>a;
+        s01 = <u32>(a >>> 32);
+        s10 = <u32>b;
+        s11 = <u32>(b >>> 32);
+        v = edge(i, u);
+        a = (<u64>s01 << 32) | <u64>s00;
+        b = (<u64>s11 << 32) | <u64>s10;
+      }
+      store<f64>(at, v);
+      at += plane;
+    }
   }
+  s00 = <u32>a;
+  s01 = <u32>(a >>> 32);
+  s10 = <u32>b;
+  s11 = <u32>(b >>> 32);
 }
 
 // Called through the function table, so the optimiser keeps it a function of its own, its
-// few values in registers, instead of inlining it into runBlock's crowded body (measured
-// about 5% faster).
-let fill: (z: usize, count: i32, stride: usize) => void = fillNormals;
+// few values in registers, instead of inlining it into runBlock's crowded body.
+let fill: (z: usize, size: i32, draws: i32, plane: usize) => void = fillNormals;
 
 @inline function normal(): f64 {
   const j = nextInt();
@@ -207,44 +244,177 @@ let fill: (z: usize, count: i32, stride: usize) => void = fillNormals;
   return abs<i32>(u) < load<i32>(pKn + (<usize>i << 2)) ? <f64>u * load<f64>(pWn + (<usize>i << 3)) : edge(i, u);
 }
 
+// Two replicates at a time: every value below is a v128 of two f64 lanes (or two i64 lanes
+// for masks and counts), one replicate in each. The arithmetic is lane by lane the scalar
+// arithmetic of the TypeScript loop, in the same order, so each lane's numbers are the ones
+// a one-at-a-time loop gives; comparisons give all-ones masks and choices are blends, with no
+// branch on the data (whether a survey is below a trigger is unpredictable from one
+// replicate to the next).
+
+// The loop's constants as two-lane values in memory, one 16-byte slot each (named below):
+// V8 rebuilds a v128 constant from an immediate in three instructions each time it is used,
+// but reads one from memory in one.
+const LANES = memory.data<u64>([
+  0x40671547652b82fe, 0x40671547652b82fe,
+  0x4338000000000000, 0x4338000000000000,
+  0xbf762e42fefa0000, 0xbf762e42fefa0000,
+  0xbd0cf79abc9e3b3a, 0xbd0cf79abc9e3b3a,
+  0x3fdffffffffffdbd, 0x3fdffffffffffdbd,
+  0x3fc555555555543c, 0x3fc555555555543c,
+  0x3fa55555cf172b91, 0x3fa55555cf172b91,
+  0x3f81111167a4d017, 0x3f81111167a4d017,
+  0x3c90000000000000, 0x3c90000000000000,
+  0x4080000000000000, 0x4080000000000000,
+  0x3ff0000000000000, 0x3ff0000000000000,
+  0x7fefffffffffffff, 0x7fefffffffffffff,
+  0xffefffffffffffff, 0xffefffffffffffff,
+  0x1, 0x1,
+  0x2, 0x2,
+  0x4, 0x4,
+  0x8, 0x8,
+  0x1, 0x1,
+  0x2, 0x2,
+], 16);
+@inline const INV_LN2_N = 0;
+@inline const SHIFT = 1;
+@inline const NEG_LN2_HI = 2;
+@inline const NEG_LN2_LO = 3;
+@inline const C2 = 4;
+@inline const C3 = 5;
+@inline const C4 = 6;
+@inline const C5 = 7;
+@inline const TINY = 8;
+@inline const HUGE = 9;
+@inline const ONE = 10;
+@inline const BIGGEST = 11;
+@inline const LOWEST = 12;
+@inline const BELOW_FLAG = 13;
+@inline const QUASI_FLAG = 14;
+@inline const RECOVERED_FLAG = 15;
+@inline const UNBOUNDED_FLAG = 16;
+@inline const INT_ONE = 17;
+@inline const INT_TWO = 18;
+
+/** The two-lane constant in slot i (one of the names above). */
+@inline function lanes(i: i32): v128 {
+  return v128.load(LANES + (<usize>i << 4));
+}
+
+@inline function splat(x: f64): v128 {
+  return f64x2.splat(x);
+}
+
+/** f applied to each lane (for log and pow, which have no two-lane form here). */
+@inline function lanesLog(x: v128): v128 {
+  return f64x2.replace_lane(f64x2.splat(Math.log(f64x2.extract_lane(x, 0))), 1, Math.log(f64x2.extract_lane(x, 1)));
+}
+@inline function lanesPow(x: v128, y: v128): v128 {
+  return f64x2.replace_lane(
+    f64x2.splat(Math.pow(f64x2.extract_lane(x, 0), f64x2.extract_lane(y, 0))),
+    1,
+    Math.pow(f64x2.extract_lane(x, 1), f64x2.extract_lane(y, 1)),
+  );
+}
+
+/**
+ * exp of both lanes: the algorithm of musl's exp (AssemblyScript's Math.exp), lane by lane,
+ *   x = k·ln2/128 + r,  exp(x) = 2^(k/128) · (1 + tail_k + r + r²(C2 + r·C3) + r⁴(C4 + r·C5))
+ * with its table T (built by ../exp-table.ts) at pExp: [tail_k bits, bits of 2^(k/128) − k·2^45]
+ * per k. Lanes outside |x| ∈ [2^−54, 512) (where musl takes its special cases) go through
+ * Math.exp itself, so every lane equals Math.exp of it bit for bit.
+ * Source: Szabolcs Nagy's exp for musl libc and ARM optimized-routines (2018), from memory.
+ */
+@inline function vexp(x: v128, tab: usize): v128 {
+  const ax = f64x2.abs(x);
+  if (!i64x2.all_true(v128.and(f64x2.ge(ax, lanes(TINY)), f64x2.lt(ax, lanes(HUGE))))) {
+    return f64x2.replace_lane(f64x2.splat(Math.exp(f64x2.extract_lane(x, 0))), 1, Math.exp(f64x2.extract_lane(x, 1)));
+  }
+  const shift = lanes(SHIFT);
+  let kd = f64x2.add(f64x2.mul(lanes(INV_LN2_N), x), shift);
+  const ki = kd;
+  kd = f64x2.sub(kd, shift);
+  const r = f64x2.add(f64x2.add(x, f64x2.mul(kd, lanes(NEG_LN2_HI))), f64x2.mul(kd, lanes(NEG_LN2_LO)));
+  const e0 = v128.load(tab + ((<usize>i64x2.extract_lane(ki, 0) & 127) << 4));
+  const e1 = v128.load(tab + ((<usize>i64x2.extract_lane(ki, 1) & 127) << 4));
+  const tail = i64x2.shuffle(e0, e1, 0, 2);
+  const scale = i64x2.add(i64x2.shuffle(e0, e1, 1, 3), i64x2.shl(ki, 45));
+  const r2 = f64x2.mul(r, r);
+  const c23 = f64x2.add(lanes(C2), f64x2.mul(r, lanes(C3)));
+  const c45 = f64x2.add(lanes(C4), f64x2.mul(r, lanes(C5)));
+  const tmp = f64x2.add(f64x2.add(f64x2.add(tail, r), f64x2.mul(r2, c23)), f64x2.mul(f64x2.mul(r2, r2), c45));
+  return f64x2.add(scale, f64x2.mul(scale, tmp));
+}
+
 /** The quota H(y) of the rule (src/policy/*.ts): kind, then its settings. */
-@inline function quota(kind: i32, y: f64, r1: f64, r2: f64, r3: f64, r4: f64): f64 {
+@inline function quota(kind: i32, y: v128, r1: v128, r2: v128, r3: v128, r4: v128): v128 {
+  const zero = splat(0);
   switch (kind) {
     case 1: return r1; // constant catch
-    case 2: return r1 * y; // constant rate
-    case 3: return select<f64>(y - r1, 0, y > r1); // constant escapement
-    case 4: return select<f64>(0, select<f64>(r3 * y, ((r3 * (y - r1)) / r4) * y, y >= r2), y <= r1); // threshold (lower, upper, rate, width)
-    default: return 0; // no harvest
+    case 2: return f64x2.mul(r1, y); // constant rate
+    case 3: return v128.bitselect(f64x2.sub(y, r1), zero, f64x2.gt(y, r1)); // constant escapement
+    case 4: // threshold (lower, upper, rate, width)
+      return v128.bitselect(zero, v128.bitselect(f64x2.mul(r3, y), f64x2.mul(f64x2.div(f64x2.mul(r3, f64x2.sub(y, r1)), r4), y), f64x2.ge(y, r2)), f64x2.le(y, r1));
+    default: return zero; // no harvest
   }
 }
 
 /**
- * base · g(dens) · exp(ε) with the family's factor g (src/models/*.ts); one exp for the
- * exponential families, as noisyProduction in src/policy/closed-loop.ts.
+ * base · g(dens) · exp(ε) with the family's factor g (src/models/*.ts) and parameters
+ * (a, K, p2, p3) per lane; one exp for the exponential families, as noisyProduction in
+ * src/policy/closed-loop.ts.
  */
-@inline function production(fam: i32, base: f64, dens: f64, lp: f64, p: usize): f64 {
-  const a = load<f64>(p, 0);
-  const K = load<f64>(p, 8);
+@inline function production(fam: i32, base: v128, dens: v128, lp: v128, a: v128, K: v128, p2: v128, p3: v128, tab: usize): v128 {
+  const one = lanes(ONE);
   switch (fam) {
-    case 0: return base * Math.exp(a * (1 - dens / K) + lp); // Ricker
-    case 1: return base * (a / (1 + ((a - 1) * dens) / K)) * Math.exp(lp); // Beverton–Holt
-    case 2: return base * (1 + a * (1 - dens / K)) * Math.exp(lp); // discrete logistic
-    case 3: return base * Math.exp(a * Math.log(K / Math.max(dens, load<f64>(p, 16))) + lp); // Gompertz
-    case 4: return base * Math.exp(a * (1 - dens / K) * (dens / load<f64>(p, 16) - 1) + lp); // Allee–Ricker
-    case 5: return base * (a / Math.pow(1 + load<f64>(p, 24) * dens, load<f64>(p, 16))) * Math.exp(lp); // Hassell
-    case 6: return base * (a / (1 + (a - 1) * Math.pow(dens / K, load<f64>(p, 16)))) * Math.exp(lp); // Shepherd
-    default: return base * (1 + a * (1 - Math.pow(dens / K, load<f64>(p, 16)))) * Math.exp(lp); // theta-logistic
+    case 0: // Ricker
+      return f64x2.mul(base, vexp(f64x2.add(f64x2.mul(a, f64x2.sub(one, f64x2.div(dens, K))), lp), tab));
+    case 1: // Beverton–Holt
+      return f64x2.mul(f64x2.mul(base, f64x2.div(a, f64x2.add(one, f64x2.div(f64x2.mul(f64x2.sub(a, one), dens), K)))), vexp(lp, tab));
+    case 2: // discrete logistic
+      return f64x2.mul(f64x2.mul(base, f64x2.add(one, f64x2.mul(a, f64x2.sub(one, f64x2.div(dens, K))))), vexp(lp, tab));
+    case 3: // Gompertz
+      return f64x2.mul(base, vexp(f64x2.add(f64x2.mul(a, lanesLog(f64x2.div(K, f64x2.pmax(p2, dens)))), lp), tab));
+    case 4: // Allee–Ricker
+      return f64x2.mul(base, vexp(f64x2.add(f64x2.mul(f64x2.mul(a, f64x2.sub(one, f64x2.div(dens, K))), f64x2.sub(f64x2.div(dens, p2), one)), lp), tab));
+    case 5: // Hassell
+      return f64x2.mul(f64x2.mul(base, f64x2.div(a, lanesPow(f64x2.add(one, f64x2.mul(p3, dens)), p2))), vexp(lp, tab));
+    case 6: // Shepherd
+      return f64x2.mul(f64x2.mul(base, f64x2.div(a, f64x2.add(one, f64x2.mul(f64x2.sub(a, one), lanesPow(f64x2.div(dens, K), p2))))), vexp(lp, tab));
+    default: // theta-logistic
+      return f64x2.mul(f64x2.mul(base, f64x2.add(one, f64x2.mul(a, f64x2.sub(one, lanesPow(f64x2.div(dens, K), p2))))), vexp(lp, tab));
   }
 }
 
-/** binOf of src/sim/quantile-histogram.ts: 0 for 0, else the bit-binned index of v·scale, clamped to [1, last]. */
-@inline function binOf(v: f64, sc: f64, first: i32, last: i32): i32 {
-  const i = <i32>(reinterpret<u64>(v * sc) >>> 44) - first + 2;
-  return select<i32>(0, select<i32>(1, select<i32>(last, i, i > last), i < 2), v == 0);
+/**
+ * binOf of src/sim/quantile-histogram.ts for both lanes: 0 for 0, else the bit-binned index
+ * of v·scale, clamped to [1, last].
+ */
+@inline function bins2(v: v128, sc: v128, first2: v128, last: v128): v128 {
+  let i = i64x2.sub(i64x2.shr_u(f64x2.mul(v, sc), 44), first2);
+  i = v128.bitselect(lanes(INT_ONE), i, i64x2.lt_s(i, lanes(INT_TWO)));
+  i = v128.bitselect(last, i, i64x2.gt_s(i, last));
+  return v128.bitselect(i64x2.splat(0), i, f64x2.eq(v, splat(0)));
 }
 
-@inline function bump(p: usize): void {
-  store<u32>(p, load<u32>(p) + 1);
+/** Adds one to bin b of the histogram at p. */
+@inline function bump(p: usize, b: i64): void {
+  const at = p + (<usize>b << 2);
+  store<u32>(at, load<u32>(at) + 1);
+}
+
+/** The scalar bin of v (the pad replicate's correction). */
+@inline function binOf(v: f64, sc: f64, first: i32, last: i32): i32 {
+  return <i32>i64x2.extract_lane(bins2(splat(v), splat(sc), i64x2.splat(<i64>(first - 2)), i64x2.splat(<i64>last)), 0);
+}
+
+/** Two lanes of a per-replicate f64 array at p, from two parameter sets' words at p0 and p1. */
+@inline function gather(p0: usize, p1: usize, offset: usize): v128 {
+  return v128.load64_lane(p1 + offset, v128.load64_zero(p0 + offset), 1);
+}
+
+/** The sum of an i64x2's lanes. */
+@inline function laneSum(v: v128): u32 {
+  return <u32>(i64x2.extract_lane(v, 0) + i64x2.extract_lane(v, 1));
 }
 
 /** One block of `size` replicates from the generator state (s01, s00, s11, s10), results to slot `slot`. */
@@ -257,29 +427,30 @@ export function runBlock(slot: i32, size: i32, a01: u32, a00: u32, a11: u32, a10
   const single = M == 1;
   const fam = family;
   const kind = ruleKind;
-  const r1 = q1;
-  const r2 = q2;
-  const r3 = q3;
-  const r4 = q4;
-  const A = stocking;
+  const r1 = splat(q1);
+  const r2 = splat(q2);
+  const r3 = splat(q3);
+  const r4 = splat(q4);
+  const A = splat(stocking);
   const beforeRepro = before;
   const hasP = sdP > 0;
   const hasO = sdO > 0;
   const hasI = sdI > 0;
-  const ar = rho;
-  const inn = innovation;
-  const hP = halfP;
-  const sO = sdO;
-  const hO = halfO;
-  const sI = sdI;
-  const hI = halfI;
-  const lim = limit;
-  const qe = quasi;
-  const target = recoveryTarget;
-  const top = bound;
-  const sc = scale;
-  const first = binBase;
-  const last = lastBin;
+  const ar = splat(rho);
+  const inn = splat(innovation);
+  const hP = splat(halfP);
+  const sO = splat(sdO);
+  const hO = splat(halfO);
+  const sI = splat(sdI);
+  const hI = splat(halfI);
+  const lim = splat(limit);
+  const qe = splat(quasi);
+  const target = splat(recoveryTarget);
+  const top = splat(bound);
+  const sc = splat(scale);
+  const first2 = i64x2.splat(<i64>(binBase - 2));
+  const last = i64x2.splat(<i64>lastBin);
+  const zero = splat(0);
   const nB = bins;
   const n0 = start;
   const models = pModels;
@@ -291,139 +462,176 @@ export function runBlock(slot: i32, size: i32, a01: u32, a00: u32, a11: u32, a10
   const changes = pSumChange;
   const prevs = pPrevCatch;
   const zs = pZ;
-  const alive = pAlive;
-  // A replicate at 0 with no catch and no stocking stays at 0 with no catch for good (the
-  // production of 0 is 0): from then on its years are counted in bulk, not simulated. Its
-  // draws are still made (fillNormals), so the other replicates' numbers do not change.
-  const absorbing = A == 0 && target > 0;
-  let aliveCount = size;
-  const draws: usize = (hasP ? 1 : 0) + (hasO ? 1 : 0) + (hasI ? 1 : 0);
-  const stride = draws << 3;
-  const oP: usize = 0;
-  const oO: usize = hasP ? 8 : 0;
-  const oI: usize = oO + (hasO ? 8 : 0);
+  const tab = pExp;
+  const draws = (hasP ? 1 : 0) + (hasO ? 1 : 0) + (hasI ? 1 : 0);
+  // The deviates by kind, each a plane of `padded` doubles (see fillNormals).
+  const padded = (size + 1) & ~1;
+  const plane = <usize>padded << 3;
+  const zO = zs + (hasP ? plane : 0);
+  const zI = zO + (hasO ? plane : 0);
+  // Parameter set 0 as lanes (all replicates use it when there is one).
+  const a0 = splat(load<f64>(models, 0));
+  const K0 = splat(load<f64>(models, 8));
+  const p20 = splat(load<f64>(models, 16));
+  const p30 = splat(load<f64>(models, 24));
   // Per-replicate set-up, in the TypeScript loop's order of draws: the parameter set, then ε[−1].
   for (let k = 0; k < size; k++) {
     const o = <usize>k << 3;
     store<i32>(picks + (<usize>k << 2), single ? 0 : min<i32>(M - 1, <i32>Math.floor((<f64>(<u32>nextInt()) / 4294967296) * <f64>M)));
-    store<f64>(epss + o, ar != 0 && hasP ? sdP * normal() : 0);
+    store<f64>(epss + o, rho != 0 && hasP ? sdP * normal() : 0);
     store<f64>(ns + o, n0);
     store<f64>(prevs + o, 0);
     store<f64>(sums + o, 0);
     store<f64>(changes + o, 0);
-    store<u8>(flags + <usize>k, n0 >= target ? <u8>RECOVERED : 0);
-    store<i32>(alive + (<usize>k << 2), k);
+    store<i64>(flags + o, n0 >= recoveryTarget ? <i64>RECOVERED : 0);
   }
-  const a0 = pACounts + (<usize>binOf(n0, sc, first, last) << 2);
-  store<u32>(a0, load<u32>(a0) + <u32>size);
+  // An odd block runs its last replicate twice, in both lanes of the last pair: the copy's
+  // counts are taken off again after each year, and the final sums stop at `size`.
+  const pad = padded != size;
+  if (pad) {
+    const o = <usize>size << 3;
+    store<i32>(picks + (<usize>size << 2), load<i32>(picks + (<usize>(size - 1) << 2)));
+    store<f64>(epss + o, load<f64>(epss + o - 8));
+    store<f64>(ns + o, n0);
+    store<f64>(prevs + o, 0);
+    store<f64>(sums + o, 0);
+    store<f64>(changes + o, 0);
+    store<i64>(flags + o, load<i64>(flags + o - 8));
+  }
+  const start0 = pACounts + (<usize>binOf(n0, scale, binBase, lastBin) << 2);
+  store<u32>(start0, load<u32>(start0) + <u32>size);
   if (n0 < load<f64>(pARange, 0)) store<f64>(pARange, n0, 0);
   if (n0 > load<f64>(pARange, 8)) store<f64>(pARange, n0, 8);
   if (n0 < load<f64>(pAPos) && n0 > 0) store<f64>(pAPos, n0);
-  if (n0 < lim) store<u32>(pBelow, load<u32>(pBelow) + <u32>size);
-  if (n0 >= target) store<u32>(pRecovery, load<u32>(pRecovery) + <u32>size);
+  if (n0 < limit) store<u32>(pBelow, load<u32>(pBelow) + <u32>size);
+  if (n0 >= recoveryTarget) store<u32>(pRecovery, load<u32>(pRecovery) + <u32>size);
   let zeroYears: u32 = 0;
   for (let t = 0; t < H; t++) {
     const aOff = pACounts + (<usize>((t + 1) * nB) << 2);
     const cOff = pCCounts + (<usize>(t * nB) << 2);
-    const belowAt = pBelow + (<usize>(t + 1) << 2);
-    const recoveryAt = pRecovery + (<usize>(t + 1) << 2);
-    let aMin = load<f64>(pARange + (<usize>(2 * t + 2) << 3));
-    let aMax = load<f64>(pARange + (<usize>(2 * t + 3) << 3));
-    let cMin = load<f64>(pCRange + (<usize>(2 * t) << 3));
-    let cMax = load<f64>(pCRange + (<usize>(2 * t + 1) << 3));
-    let aPos = load<f64>(pAPos + (<usize>(t + 1) << 3));
-    let cPos = load<f64>(pCPos + (<usize>t << 3));
-    let belowCount: u32 = 0;
-    let recoveryCount: u32 = 0;
-    // The year's normal deviates first, in the order the TypeScript loop draws them (per
-    // replicate: process, survey, catch); the loop after uses them.
-    if (draws > 0) fill(zs, size * <i32>draws, 8);
-    // The absorbed replicates' year, all at once: N = 0, C = 0.
-    const absorbed = <u32>(size - aliveCount);
-    if (absorbed > 0) {
-      store<u32>(aOff, load<u32>(aOff) + absorbed);
-      store<u32>(cOff, load<u32>(cOff) + absorbed);
-      zeroYears += absorbed;
-      if (0 < lim) belowCount += absorbed;
-      if (0 < aMin) aMin = 0;
-      if (0 > aMax) aMax = 0;
-      if (0 < cMin) cMin = 0;
-      if (0 > cMax) cMax = 0;
+    let aMin = lanes(BIGGEST);
+    let aMax = lanes(LOWEST);
+    let cMin = lanes(BIGGEST);
+    let cMax = lanes(LOWEST);
+    let aPos = lanes(BIGGEST);
+    let cPos = lanes(BIGGEST);
+    let belowCount = i64x2.splat(0);
+    let recoveryCount = i64x2.splat(0);
+    let zeroCount = i64x2.splat(0);
+    if (draws > 0) fill(zs, size, draws, plane);
+    const padFlags = pad ? load<i64>(flags + (<usize>size << 3)) : 0;
+    if (pad) {
+      store<f64>(zs + (<usize>size << 3), load<f64>(zs + (<usize>(size - 1) << 3)));
+      store<f64>(zO + (<usize>size << 3), load<f64>(zO + (<usize>(size - 1) << 3)));
+      store<f64>(zI + (<usize>size << 3), load<f64>(zI + (<usize>(size - 1) << 3)));
     }
     const later = t > 0;
-    let kept = 0;
-    for (let j = 0; j < aliveCount; j++) {
-      const k = load<i32>(alive + (<usize>j << 2));
+    for (let k = 0; k < padded; k += 2) {
       const o = <usize>k << 3;
-      const z = zs + <usize>k * stride;
-      let lp: f64 = 0;
-      let sm: f64 = 1;
-      let im: f64 = 1;
+      let lp = zero;
+      let sm = lanes(ONE);
+      let im = lanes(ONE);
       if (hasP) {
-        const e = ar * load<f64>(epss + o) + inn * load<f64>(z + oP);
-        store<f64>(epss + o, e);
-        lp = e - hP;
+        const e = f64x2.add(f64x2.mul(ar, v128.load(epss + o)), f64x2.mul(inn, v128.load(zs + o)));
+        v128.store(epss + o, e);
+        lp = f64x2.sub(e, hP);
       }
-      if (hasO) sm = Math.exp(sO * load<f64>(z + oO) - hO);
-      if (hasI) im = Math.exp(sI * load<f64>(z + oI) - hI);
-      const p = models + (single ? 0 : <usize>load<i32>(picks + (<usize>k << 2)) << 5);
-      // nextWith of src/policy/closed-loop.ts, branch-free (select, min, max): which
-      // replicates have collapsed, fallen below the limit or recovered is unpredictable from
-      // one to the next. No NaN reaches here, and the production of 0 is 0, so the values
-      // are those of nextWith's branches.
-      const n = load<f64>(ns + o);
-      const aim = quota(kind, n * sm, r1, r2, r3, r4) * im;
-      let next: f64;
-      let c: f64;
+      if (hasO) sm = vexp(f64x2.sub(f64x2.mul(sO, v128.load(zO + o)), hO), tab);
+      if (hasI) im = vexp(f64x2.sub(f64x2.mul(sI, v128.load(zI + o)), hI), tab);
+      let a = a0;
+      let K = K0;
+      let p2 = p20;
+      let p3 = p30;
+      if (!single) {
+        const m0 = models + (<usize>load<i32>(picks + (<usize>k << 2)) << 5);
+        const m1 = models + (<usize>load<i32>(picks + (<usize>k << 2), 4) << 5);
+        a = gather(m0, m1, 0);
+        K = gather(m0, m1, 8);
+        p2 = gather(m0, m1, 16);
+        p3 = gather(m0, m1, 24);
+      }
+      // nextWith of src/policy/closed-loop.ts. No NaN reaches here, and the production of 0
+      // is 0, so pmin / pmax give the values of its min and max.
+      const n = v128.load(ns + o);
+      const aim = f64x2.mul(quota(kind, f64x2.mul(n, sm), r1, r2, r3, r4), im);
+      let next: v128;
+      let c: v128;
       if (beforeRepro) {
-        c = min<f64>(aim, n);
-        next = max<f64>(production(fam, n - c, n - c, lp, p), 0) + A;
+        c = f64x2.pmin(aim, n);
+        const e = f64x2.sub(n, c);
+        next = f64x2.add(f64x2.pmax(zero, production(fam, e, e, lp, a, K, p2, p3, tab)), A);
       } else {
-        const q = max<f64>(production(fam, n, n, lp, p), 0);
-        c = min<f64>(aim, q);
-        next = q - c + A;
+        const q = f64x2.pmax(zero, production(fam, n, n, lp, a, K, p2, p3, tab));
+        c = f64x2.pmin(aim, q);
+        next = f64x2.add(f64x2.sub(q, c), A);
       }
-      let f = <u32>load<u8>(flags + <usize>k);
-      if (!(next <= top)) {
-        next = top;
-        f |= UNBOUNDED;
-      }
-      store<f64>(ns + o, next);
-      const isBelow = <u32>(next < lim);
-      belowCount += isBelow;
-      f |= isBelow * BELOW;
-      f |= <u32>(next < qe) * QUASI;
-      const recovered = <u32>(next >= target) & ~(f >> 2) & 1;
-      recoveryCount += recovered;
-      f |= recovered * RECOVERED;
-      store<u8>(flags + <usize>k, <u8>f);
-      store<f64>(sums + o, load<f64>(sums + o) + c);
-      if (later) store<f64>(changes + o, load<f64>(changes + o) + Math.abs(c - load<f64>(prevs + o)));
-      store<f64>(prevs + o, c);
-      zeroYears += <u32>(c == 0);
-      bump(aOff + (<usize>binOf(next, sc, first, last) << 2));
-      bump(cOff + (<usize>binOf(c, sc, first, last) << 2));
-      // Branches, not f64.min/max (which V8 expands into a longer sequence for NaN and −0):
-      // a new smallest or largest value is rare, so these are well predicted.
-      if (next < aMin) aMin = next;
-      if (next > aMax) aMax = next;
-      if (c < cMin) cMin = c;
-      if (c > cMax) cMax = c;
-      // Smallest positive value (the test on the rare new minimum first, so it predicts well).
-      if (next < aPos && next > 0) aPos = next;
-      if (c < cPos && c > 0) cPos = c;
-      store<i32>(alive + (<usize>kept << 2), k);
-      kept += select<i32>(0, 1, absorbing && next == 0 && c == 0);
+      let f = v128.load(flags + o);
+      const unbounded = v128.not(f64x2.le(next, top));
+      next = v128.bitselect(top, next, unbounded);
+      f = v128.or(f, v128.and(unbounded, lanes(UNBOUNDED_FLAG)));
+      v128.store(ns + o, next);
+      f = v128.or(f, v128.and(f64x2.lt(next, lim), lanes(BELOW_FLAG)));
+      f = v128.or(f, v128.and(f64x2.lt(next, qe), lanes(QUASI_FLAG)));
+      const recovered = v128.and(f64x2.ge(next, target), i64x2.eq(v128.and(f, lanes(RECOVERED_FLAG)), i64x2.splat(0)));
+      recoveryCount = i64x2.sub(recoveryCount, recovered);
+      f = v128.or(f, v128.and(recovered, lanes(RECOVERED_FLAG)));
+      v128.store(flags + o, f);
+      v128.store(sums + o, f64x2.add(v128.load(sums + o), c));
+      if (later) v128.store(changes + o, f64x2.add(v128.load(changes + o), f64x2.abs(f64x2.sub(c, v128.load(prevs + o)))));
+      v128.store(prevs + o, c);
     }
-    aliveCount = kept;
-    store<f64>(pAPos + (<usize>(t + 1) << 3), aPos);
-    store<f64>(pCPos + (<usize>t << 3), cPos);
-    store<u32>(belowAt, load<u32>(belowAt) + belowCount);
-    store<u32>(recoveryAt, load<u32>(recoveryAt) + recoveryCount);
-    store<f64>(pARange + (<usize>(2 * t + 2) << 3), aMin);
-    store<f64>(pARange + (<usize>(2 * t + 3) << 3), aMax);
-    store<f64>(pCRange + (<usize>(2 * t) << 3), cMin);
-    store<f64>(pCRange + (<usize>(2 * t + 1) << 3), cMax);
+    // The year's abundance and catch (in ns and prevs) into the histograms, ranges and counts:
+    // a second pass, so that each loop's values fit in the registers.
+    for (let k = 0; k < padded; k += 2) {
+      const o = <usize>k << 3;
+      const next = v128.load(ns + o);
+      const c = v128.load(prevs + o);
+      belowCount = i64x2.sub(belowCount, f64x2.lt(next, lim));
+      zeroCount = i64x2.sub(zeroCount, f64x2.eq(c, zero));
+      const bn = bins2(next, sc, first2, last);
+      bump(aOff, i64x2.extract_lane(bn, 0));
+      bump(aOff, i64x2.extract_lane(bn, 1));
+      const bc = bins2(c, sc, first2, last);
+      bump(cOff, i64x2.extract_lane(bc, 0));
+      bump(cOff, i64x2.extract_lane(bc, 1));
+      aMin = f64x2.pmin(aMin, next);
+      aMax = f64x2.pmax(aMax, next);
+      cMin = f64x2.pmin(cMin, c);
+      cMax = f64x2.pmax(cMax, c);
+      aPos = f64x2.pmin(aPos, v128.bitselect(next, lanes(BIGGEST), f64x2.gt(next, zero)));
+      cPos = f64x2.pmin(cPos, v128.bitselect(c, lanes(BIGGEST), f64x2.gt(c, zero)));
+    }
+    let belowYear = laneSum(belowCount);
+    let recoveryYear = laneSum(recoveryCount);
+    let zeroYear = laneSum(zeroCount);
+    if (pad) {
+      // Take the copy of the last replicate off the counts (min and max are unchanged by it).
+      const o = <usize>size << 3;
+      const nx = load<f64>(ns + o);
+      const cx = load<f64>(prevs + o);
+      const ba = aOff + (<usize>binOf(nx, scale, binBase, lastBin) << 2);
+      store<u32>(ba, load<u32>(ba) - 1);
+      const bc = cOff + (<usize>binOf(cx, scale, binBase, lastBin) << 2);
+      store<u32>(bc, load<u32>(bc) - 1);
+      belowYear -= <u32>(nx < limit);
+      zeroYear -= <u32>(cx == 0);
+      recoveryYear -= <u32>((load<i64>(flags + o) & ~padFlags & RECOVERED) != 0);
+    }
+    zeroYears += zeroYear;
+    const belowAt = pBelow + (<usize>(t + 1) << 2);
+    const recoveryAt = pRecovery + (<usize>(t + 1) << 2);
+    store<u32>(belowAt, load<u32>(belowAt) + belowYear);
+    store<u32>(recoveryAt, load<u32>(recoveryAt) + recoveryYear);
+    const aR = pARange + (<usize>(2 * t + 2) << 3);
+    const cR = pCRange + (<usize>(2 * t) << 3);
+    store<f64>(aR, min(load<f64>(aR), min(f64x2.extract_lane(aMin, 0), f64x2.extract_lane(aMin, 1))));
+    store<f64>(aR, max(load<f64>(aR, 8), max(f64x2.extract_lane(aMax, 0), f64x2.extract_lane(aMax, 1))), 8);
+    store<f64>(cR, min(load<f64>(cR), min(f64x2.extract_lane(cMin, 0), f64x2.extract_lane(cMin, 1))));
+    store<f64>(cR, max(load<f64>(cR, 8), max(f64x2.extract_lane(cMax, 0), f64x2.extract_lane(cMax, 1))), 8);
+    const aP = pAPos + (<usize>(t + 1) << 3);
+    const cP = pCPos + (<usize>t << 3);
+    store<f64>(aP, min(load<f64>(aP), min(f64x2.extract_lane(aPos, 0), f64x2.extract_lane(aPos, 1))));
+    store<f64>(cP, min(load<f64>(cP), min(f64x2.extract_lane(cPos, 0), f64x2.extract_lane(cPos, 1))));
   }
   // counters: everBelowLimit, everQuasiExtinct, unbounded, zeroCatchYears (u32 each)
   store<u32>(pCounters, load<u32>(pCounters, 12) + zeroYears, 12);
@@ -431,15 +639,15 @@ export function runBlock(slot: i32, size: i32, a01: u32, a00: u32, a11: u32, a10
   let aav: f64 = 0;
   let aavCount: u32 = 0;
   for (let k = 0; k < size; k++) {
-    const f = load<u8>(pFlags + <usize>k);
+    const o = <usize>k << 3;
+    const f = load<i64>(flags + o);
     if (f & BELOW) store<u32>(pCounters, load<u32>(pCounters, 0) + 1, 0);
     if (f & QUASI) store<u32>(pCounters, load<u32>(pCounters, 4) + 1, 4);
     if (f & UNBOUNDED) store<u32>(pCounters, load<u32>(pCounters, 8) + 1, 8);
-    const o = <usize>k << 3;
-    const sc = load<f64>(pSumCatch + o);
+    const sc = load<f64>(sums + o);
     total += sc;
     if (sc > 0) {
-      aav += load<f64>(pSumChange + o) / sc;
+      aav += load<f64>(changes + o) / sc;
       aavCount++;
     }
   }
