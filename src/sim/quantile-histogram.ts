@@ -45,39 +45,66 @@ function lowerEdge(i: number): number {
 /**
  * The bins [first, last] of the positive values in [lo, hi] (first > last when lo > hi:
  * none). binOf is increasing and sends only 0 to bin 0, so a year's histogram is zero
- * outside bin 0 and the span of its smallest and largest positive value: the sums and scans
- * below need only those bins.
+ * outside bin 0 and the span of its smallest and largest positive value: the sums below need
+ * only those bins.
  */
 export function positiveSpan(lo: number, hi: number, scale: number): [number, number] {
   return lo <= hi && lo > 0 ? [binOf(lo, scale), binOf(hi, scale)] : [1, 0];
 }
 
+/** Bins per group: a histogram's counts are also summed per group of this many consecutive bins. */
+export const GROUP_BINS = 256;
+/** Groups per histogram (the last one partly filled). */
+export const HISTOGRAM_GROUPS = Math.ceil(HISTOGRAM_BINS / GROUP_BINS);
+
 /**
- * Percentiles (in %, increasing) of the values counted in
- * `counts[offset … offset + HISTOGRAM_BINS)`, in the abundance unit (times `K`), read in
- * one pass over bin 0 (the zeros) and the bins of `span` (all others unless given; every
- * count must lie in those). An empty histogram gives zeros.
+ * Adds the group sums of `years` consecutive histograms in `counts` into `groups`
+ * (HISTOGRAM_GROUPS per year), reading only bin 0 and each year's `spans[t]` (every count
+ * must lie in those).
  */
-export function histogramPercentiles(counts: Uint32Array, offset: number, levels: readonly number[], K: number, span: readonly [number, number] = [1, HISTOGRAM_BINS - 1]): number[] {
-  const from = Math.max(1, span[0]);
-  const to = span[1];
-  let total = counts[offset]!;
-  for (let i = from; i <= to; i++) total += counts[offset + i]!;
+export function addGroupSums(counts: Uint32Array, groups: Uint32Array, years: number, spans: (t: number) => readonly [number, number]): void {
+  for (let t = 0; t < years; t++) {
+    const off = t * HISTOGRAM_BINS;
+    const g0 = t * HISTOGRAM_GROUPS;
+    groups[g0]! += counts[off]!;
+    const [from, to] = spans(t);
+    for (let i = Math.max(1, from); i <= to; i++) groups[g0 + ((i / GROUP_BINS) | 0)]! += counts[off + i]!;
+  }
+}
+
+/**
+ * Percentiles (in %, increasing) of the values in a histogram given by its group sums
+ * `group(g)` (g < HISTOGRAM_GROUPS) and its bin counts `bin(i)`, in the abundance unit
+ * (times `K`): the groups are summed first, and only the bins of a group where the
+ * cumulative count crosses a level are read, in bin order (values are increasing in the bin
+ * index, with exact zeros in bin 0). An empty histogram gives zeros.
+ */
+export function histogramPercentiles(group: (g: number) => number, bin: (i: number) => number, levels: readonly number[], K: number): number[] {
+  const sums = new Float64Array(HISTOGRAM_GROUPS);
+  let total = 0;
+  for (let g = 0; g < HISTOGRAM_GROUPS; g++) total += sums[g] = group(g);
   const out = levels.map(() => 0);
   if (total === 0) return out;
   let cum = 0;
   let l = 0;
-  const visit = (bin: number) => {
-    const c = counts[offset + bin]!;
-    if (c === 0) return;
-    while (l < levels.length && cum + c >= (levels[l]! / 100) * total) {
-      out[l] = valueInBin(bin, (levels[l]! / 100) * total - cum, c) * K;
-      l++;
+  for (let g = 0; g < HISTOGRAM_GROUPS && l < levels.length; g++) {
+    const gc = sums[g]!;
+    if (gc === 0) continue;
+    if (cum + gc < (levels[l]! / 100) * total) {
+      cum += gc;
+      continue;
     }
-    cum += c;
-  };
-  visit(0);
-  for (let i = from; i <= to && l < levels.length; i++) visit(i);
+    const end = Math.min(HISTOGRAM_BINS, (g + 1) * GROUP_BINS);
+    for (let i = g * GROUP_BINS; i < end && l < levels.length; i++) {
+      const c = bin(i);
+      if (c === 0) continue;
+      while (l < levels.length && cum + c >= (levels[l]! / 100) * total) {
+        out[l] = valueInBin(i, (levels[l]! / 100) * total - cum, c) * K;
+        l++;
+      }
+      cum += c;
+    }
+  }
   for (; l < levels.length; l++) out[l] = lowerEdge(LAST);
   return out;
 }

@@ -1,4 +1,4 @@
-import { HISTOGRAM_BINS, histogramPercentiles, positiveSpan } from "./quantile-histogram.js";
+import { HISTOGRAM_BINS, HISTOGRAM_GROUPS, histogramPercentiles } from "./quantile-histogram.js";
 import type { Scenario } from "./scenario.js";
 import type { ProjectionParts } from "./stochastic-projection.js";
 import type { Uncertainty } from "./uncertainty.js";
@@ -63,13 +63,6 @@ function inBlockOrder(list: readonly ProjectionParts[]): ProjectionParts[] {
   return sorted;
 }
 
-/** The smallest positive value of year t over all parts (Number.MAX_VALUE when none). */
-function yearPositiveMin(parts: readonly ProjectionParts[], which: "abundancePositiveMin" | "catchPositiveMin", t: number): number {
-  let lo = Number.MAX_VALUE;
-  for (const p of parts) lo = Math.min(lo, p[which][t]!);
-  return lo;
-}
-
 /** The smallest and largest value of year t over all parts. */
 function yearRange(parts: readonly ProjectionParts[], which: "abundanceRange" | "catchRange", t: number): [number, number] {
   let lo = Number.MAX_VALUE;
@@ -85,18 +78,24 @@ function clamp(v: number, lo: number, hi: number): number {
   return v < lo ? lo : v > hi ? hi : v;
 }
 
-/** Sums year t's histogram over all parts into `into`, over bin 0 and the bins of `span` only (the rest of `into` is left as it was). */
-function yearHistogram(parts: readonly ProjectionParts[], which: "abundanceCounts" | "catchCounts", t: number, into: Uint32Array, span: readonly [number, number]): Uint32Array {
-  const [from, to] = span;
-  const off = t * HISTOGRAM_BINS;
-  into[0] = 0;
-  if (from <= to) into.fill(0, from, to + 1);
-  for (const p of parts) {
-    const c = p[which];
-    into[0]! += c[off]!;
-    for (let i = from; i <= to; i++) into[i]! += c[off + i]!;
-  }
-  return into;
+/** Percentiles of year t's histogram (`counts`, with its group sums `groups`) summed over all parts. */
+function yearPercentiles(parts: readonly ProjectionParts[], counts: "abundanceCounts" | "catchCounts", groups: "abundanceGroups" | "catchGroups", t: number, levels: readonly number[], K: number): number[] {
+  const g0 = t * HISTOGRAM_GROUPS;
+  const b0 = t * HISTOGRAM_BINS;
+  return histogramPercentiles(
+    (g) => {
+      let s = 0;
+      for (const p of parts) s += p[groups][g0 + g]!;
+      return s;
+    },
+    (i) => {
+      let s = 0;
+      for (const p of parts) s += p[counts][b0 + i]!;
+      return s;
+    },
+    levels,
+    K,
+  );
 }
 
 /**
@@ -115,29 +114,13 @@ export function summariseProjection(list: readonly ProjectionParts[], scenario: 
   const levels = [...PERCENTILE_LEVELS];
   const abundance = levels.map(() => new Array<number>(H + 1).fill(0));
   const caught = levels.map(() => new Array<number>(H).fill(0));
-  // Each year's counts lie in bin 0 (zeros) and the bins of its positive values (positiveSpan).
-  const year = new Uint32Array(HISTOGRAM_BINS);
-  const scale = 1 / K;
   for (let t = 0; t <= H; t++) {
     const [lo, hi] = yearRange(parts, "abundanceRange", t);
-    const span = positiveSpan(yearPositiveMin(parts, "abundancePositiveMin", t), hi, scale);
-    const q = histogramPercentiles(yearHistogram(parts, "abundanceCounts", t, year, span), 0, levels, K, span);
-    q.forEach((v, i) => (abundance[i]![t] = clamp(v, lo, hi)));
+    yearPercentiles(parts, "abundanceCounts", "abundanceGroups", t, levels, K).forEach((v, i) => (abundance[i]![t] = clamp(v, lo, hi)));
   }
-  const pooled = new Uint32Array(HISTOGRAM_BINS);
-  let pooledFrom = HISTOGRAM_BINS - 1;
-  let pooledTo = 0; // an empty span (from > to) when no year caught anything
   for (let t = 0; t < H; t++) {
     const [lo, hi] = yearRange(parts, "catchRange", t);
-    const span = positiveSpan(yearPositiveMin(parts, "catchPositiveMin", t), hi, scale);
-    const q = histogramPercentiles(yearHistogram(parts, "catchCounts", t, year, span), 0, levels, K, span);
-    q.forEach((v, i) => (caught[i]![t] = clamp(v, lo, hi)));
-    pooled[0]! += year[0]!;
-    for (let b = span[0]; b <= span[1]; b++) pooled[b]! += year[b]!;
-    if (span[0] <= span[1]) {
-      pooledFrom = Math.min(pooledFrom, span[0]);
-      pooledTo = Math.max(pooledTo, span[1]);
-    }
+    yearPercentiles(parts, "catchCounts", "catchGroups", t, levels, K).forEach((v, i) => (caught[i]![t] = clamp(v, lo, hi)));
   }
   // Floating-point sums in block order, so any split across workers adds up identically.
   let catchTotal = 0;
@@ -194,12 +177,22 @@ export function summariseProjection(list: readonly ProjectionParts[], scenario: 
       quasiExtinction: estimate(everQuasi, n),
       recovery: { ...estimate(recovered, n), medianYears, meanYears: recovered > 0 ? yearsSum / recovered : null },
       meanCatch: H > 0 ? catchTotal / (n * H) : 0,
-      medianCatch: H > 0 ? histogramPercentiles(pooled, 0, [50], K, [pooledFrom, pooledTo])[0]! : 0,
+      medianCatch: H > 0 ? pooledCatchMedian(parts, H, K) : 0,
       averageAnnualVariation: aavCount > 0 ? aav / aavCount : null,
       zeroCatchFraction: H > 0 ? zeroYears / (n * H) : 0,
     },
     unboundedReplicates: unbounded,
   };
+}
+
+/** The median of every replicate's catch in every year: the catch histograms pooled over the years. */
+function pooledCatchMedian(parts: readonly ProjectionParts[], H: number, K: number): number {
+  const sum = (key: "catchGroups" | "catchCounts", stride: number, i: number) => {
+    let s = 0;
+    for (const p of parts) for (let t = 0; t < H; t++) s += p[key][t * stride + i]!;
+    return s;
+  };
+  return histogramPercentiles((g) => sum("catchGroups", HISTOGRAM_GROUPS, g), (i) => sum("catchCounts", HISTOGRAM_BINS, i), [50], K)[0]!;
 }
 
 function estimate(count: number, n: number): Estimate {

@@ -1,7 +1,7 @@
 import { closedLoop, type ClosedLoop, type StepNoise, type StepRecord } from "../policy/closed-loop.js";
 import type { Rule } from "../policy/rule-spec.js";
 import { UNBOUNDED_FACTOR } from "./project.js";
-import { binOf, HISTOGRAM_BINS } from "./quantile-histogram.js";
+import { addGroupSums, binOf, HISTOGRAM_BINS, HISTOGRAM_GROUPS, positiveSpan } from "./quantile-histogram.js";
 import { BLOCK_SIZE, blockCount, blockLength, blockStates, blockStreams } from "./replicate-streams.js";
 import type { Scenario } from "./scenario.js";
 import type { Uncertainty } from "./uncertainty.js";
@@ -20,6 +20,9 @@ export interface ProjectionParts {
   readonly abundanceCounts: Uint32Array;
   /** Histogram of the catch C[t], t = 0 … horizon − 1. */
   readonly catchCounts: Uint32Array;
+  /** The two histograms summed per group of GROUP_BINS bins (HISTOGRAM_GROUPS per year): percentiles read only the groups they fall in. */
+  readonly abundanceGroups: Uint32Array;
+  readonly catchGroups: Uint32Array;
   /** Smallest and largest N[t] and C[t] per year (percentiles are clamped into them, so a point mass is exact). */
   readonly abundanceRange: Float64Array;
   readonly catchRange: Float64Array;
@@ -84,6 +87,8 @@ export function simulateBlocks(scenario: Scenario, uncertainty: Uncertainty, fro
     horizon: H,
     abundanceCounts: new Uint32Array((H + 1) * HISTOGRAM_BINS),
     catchCounts: new Uint32Array(H * HISTOGRAM_BINS),
+    abundanceGroups: new Uint32Array((H + 1) * HISTOGRAM_GROUPS),
+    catchGroups: new Uint32Array(H * HISTOGRAM_GROUPS),
     abundanceRange: emptyRange(H + 1),
     catchRange: emptyRange(H),
     abundancePositiveMin: new Float64Array(H + 1).fill(Number.MAX_VALUE),
@@ -101,14 +106,17 @@ export function simulateBlocks(scenario: Scenario, uncertainty: Uncertainty, fro
   const loops = uncertainty.models.map((m) => closedLoop(m, rule));
   if (engine === "auto" && kernelApplies(loops[0]!)) {
     kernelBlocks(parts, scenario, uncertainty, rule, loops, blockStates(uncertainty.seed, from));
-    return parts;
+  } else {
+    const streams = blockStreams(uncertainty.seed, from);
+    const state = new BlockState(Math.min(BLOCK_SIZE, uncertainty.replicates), loops[0]!.layout.dimension);
+    for (let b = from; b < to; b++) {
+      const g = streams.next().value as IntSource;
+      runBlock(parts, b - from, blockLength(b, uncertainty.replicates), g, loops, scenario, uncertainty, K, state);
+    }
   }
-  const streams = blockStreams(uncertainty.seed, from);
-  const state = new BlockState(Math.min(BLOCK_SIZE, uncertainty.replicates), loops[0]!.layout.dimension);
-  for (let b = from; b < to; b++) {
-    const g = streams.next().value as IntSource;
-    runBlock(parts, b - from, blockLength(b, uncertainty.replicates), g, loops, scenario, uncertainty, K, state);
-  }
+  const span = (positiveMin: Float64Array, range: Float64Array) => (t: number) => positiveSpan(positiveMin[t]!, range[2 * t + 1]!, 1 / K);
+  addGroupSums(parts.abundanceCounts, parts.abundanceGroups, H + 1, span(parts.abundancePositiveMin, parts.abundanceRange));
+  addGroupSums(parts.catchCounts, parts.catchGroups, H, span(parts.catchPositiveMin, parts.catchRange));
   return parts;
 }
 
