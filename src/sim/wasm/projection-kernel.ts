@@ -272,8 +272,6 @@ const LANES = memory.data<u64>([
   0x2, 0x2,
   0x4, 0x4,
   0x8, 0x8,
-  0x1, 0x1,
-  0x2, 0x2,
 ], 16);
 @inline const INV_LN2_N = 0;
 @inline const SHIFT = 1;
@@ -292,8 +290,7 @@ const LANES = memory.data<u64>([
 @inline const QUASI_FLAG = 14;
 @inline const RECOVERED_FLAG = 15;
 @inline const UNBOUNDED_FLAG = 16;
-@inline const INT_ONE = 17;
-@inline const INT_TWO = 18;
+@inline const INT_ONE = BELOW_FLAG; // the integer 1 in each 64-bit lane
 
 /** The two-lane constant in slot i (one of the names above). */
 @inline function lanes(i: i32): v128 {
@@ -387,24 +384,23 @@ const LANES = memory.data<u64>([
 
 /**
  * binOf of src/sim/quantile-histogram.ts for both lanes: 0 for 0, else the bit-binned index
- * of v·scale, clamped to [1, last].
+ * of v·scale, clamped to [1, last]. v ≥ 0, so the top bits fit an i32: the bins come back in
+ * i32 lanes 0 and 2 (the low halves of the two doubles).
  */
 @inline function bins2(v: v128, sc: v128, first2: v128, last: v128): v128 {
-  let i = i64x2.sub(i64x2.shr_u(f64x2.mul(v, sc), 44), first2);
-  i = v128.bitselect(lanes(INT_ONE), i, i64x2.lt_s(i, lanes(INT_TWO)));
-  i = v128.bitselect(last, i, i64x2.gt_s(i, last));
-  return v128.bitselect(i64x2.splat(0), i, f64x2.eq(v, splat(0)));
+  const i = i32x4.sub(i64x2.shr_u(f64x2.mul(v, sc), 44), first2);
+  return v128.andnot(i32x4.min_s(i32x4.max_s(i, lanes(INT_ONE)), last), f64x2.eq(v, splat(0)));
 }
 
 /** Adds one to bin b of the histogram at p. */
-@inline function bump(p: usize, b: i64): void {
+@inline function bump(p: usize, b: i32): void {
   const at = p + (<usize>b << 2);
   store<u32>(at, load<u32>(at) + 1);
 }
 
 /** The scalar bin of v (the pad replicate's correction). */
 @inline function binOf(v: f64, sc: f64, first: i32, last: i32): i32 {
-  return <i32>i64x2.extract_lane(bins2(splat(v), splat(sc), i64x2.splat(<i64>(first - 2)), i64x2.splat(<i64>last)), 0);
+  return i32x4.extract_lane(bins2(splat(v), splat(sc), i32x4.splat(first - 2), i32x4.splat(last)), 0);
 }
 
 /** Two lanes of a per-replicate f64 array at p, from two parameter sets' words at p0 and p1. */
@@ -448,8 +444,8 @@ export function runBlock(slot: i32, size: i32, a01: u32, a00: u32, a11: u32, a10
   const target = splat(recoveryTarget);
   const top = splat(bound);
   const sc = splat(scale);
-  const first2 = i64x2.splat(<i64>(binBase - 2));
-  const last = i64x2.splat(<i64>lastBin);
+  const first2 = i32x4.splat(binBase - 2);
+  const last = i32x4.splat(lastBin);
   const zero = splat(0);
   const nB = bins;
   const n0 = start;
@@ -589,17 +585,18 @@ export function runBlock(slot: i32, size: i32, a01: u32, a00: u32, a11: u32, a10
       belowCount = i64x2.sub(belowCount, f64x2.lt(next, lim));
       zeroCount = i64x2.sub(zeroCount, f64x2.eq(c, zero));
       const bn = bins2(next, sc, first2, last);
-      bump(aOff, i64x2.extract_lane(bn, 0));
-      bump(aOff, i64x2.extract_lane(bn, 1));
+      bump(aOff, i32x4.extract_lane(bn, 0));
+      bump(aOff, i32x4.extract_lane(bn, 2));
       const bc = bins2(c, sc, first2, last);
-      bump(cOff, i64x2.extract_lane(bc, 0));
-      bump(cOff, i64x2.extract_lane(bc, 1));
+      bump(cOff, i32x4.extract_lane(bc, 0));
+      bump(cOff, i32x4.extract_lane(bc, 2));
       aMin = f64x2.pmin(aMin, next);
       aMax = f64x2.pmax(aMax, next);
       cMin = f64x2.pmin(cMin, c);
       cMax = f64x2.pmax(cMax, c);
-      aPos = f64x2.pmin(aPos, v128.bitselect(next, lanes(BIGGEST), f64x2.gt(next, zero)));
-      cPos = f64x2.pmin(cPos, v128.bitselect(c, lanes(BIGGEST), f64x2.gt(c, zero)));
+      // Smallest positive value: a zero (values are ≥ 0) counts as the largest double.
+      aPos = f64x2.pmin(aPos, f64x2.add(next, v128.and(f64x2.eq(next, zero), lanes(BIGGEST))));
+      cPos = f64x2.pmin(cPos, f64x2.add(c, v128.and(f64x2.eq(c, zero), lanes(BIGGEST))));
     }
     let belowYear = laneSum(belowCount);
     let recoveryYear = laneSum(recoveryCount);
