@@ -61,7 +61,22 @@ const RULE_KINDS_IN_KERNEL: ReadonlySet<string> = new Set(["no-harvest", "consta
 
 /** True when the kernel can run this loop: a one-number state, and a family and a rule kind it knows. */
 export function kernelApplies(loop: ClosedLoop): boolean {
-  return loop.layout.dimension === 1 && FAMILY_CODES[loop.model.family] !== undefined && RULE_KINDS_IN_KERNEL.has(loop.rule.kind);
+  return loop.layout.dimension === 1 && FAMILY_CODES[loop.model.family] !== undefined && RULE_KINDS_IN_KERNEL.has(loop.rule.kind) && kernelCompiles();
+}
+
+let compiles: boolean | null = null;
+
+/** False on an engine without WebAssembly SIMD (the TypeScript loop runs instead). */
+function kernelCompiles(): boolean {
+  if (compiles === null) {
+    try {
+      instance();
+      compiles = true;
+    } catch {
+      compiles = false;
+    }
+  }
+  return compiles;
 }
 
 /** The four numbers the kernel reads per parameter set (see production() in the kernel). */
