@@ -18,8 +18,9 @@ const EXP_TABLE = expTable();
  * The stochastic projection's inner loop compiled to WebAssembly (src/sim/wasm/
  * projection-kernel.ts), for loops whose state is one number. It runs the replicate blocks
  * exactly as runBlock in stochastic-projection.ts does (same random stream, same order of
- * operations, same histograms and counters) four to six times faster, two replicates at a time in SIMD lanes; only exp, log and pow
- * come from another library, so the two agree to rounding.
+ * operations, same histograms and counters), two replicates at a time in SIMD lanes, four to
+ * six times faster; only exp, log and pow come from another library, so the two agree to
+ * rounding.
  */
 interface KernelExports {
   readonly memory: WebAssembly.Memory;
