@@ -18,8 +18,8 @@ const EXP_TABLE = expTable();
  * The stochastic projection's inner loop compiled to WebAssembly (src/sim/wasm/
  * projection-kernel.ts), for loops whose state is one number. It runs the replicate blocks
  * exactly as runBlock in stochastic-projection.ts does (same random stream, same order of
- * operations, same histograms and counters), two replicates at a time in SIMD lanes, four to
- * six times faster; only exp, log and pow come from another library, so the two agree to
+ * operations, same histograms and counters), two replicates at a time in SIMD lanes, about
+ * three times as fast; only exp, log and pow come from another library, so the two agree to
  * rounding.
  */
 interface KernelExports {
@@ -40,19 +40,25 @@ const FAMILY_CODES: Record<string, number> = {
   "theta-logistic": 7,
 };
 
-let kernel: KernelExports | null = null;
+/** The compiled kernel; null where it does not compile (no WebAssembly SIMD); undefined until tried. */
+let kernel: KernelExports | null | undefined;
 /** The layout of the last run that left its two histograms zero (see kernelBlocks). */
 let countsLeftZero: string | null = null;
 
-function instance(): KernelExports {
-  if (!kernel) {
+/** The kernel, compiled on first use, or null where the engine cannot compile it. */
+function instance(): KernelExports | null {
+  if (kernel === undefined) {
     const bin = atob(PROJECTION_KERNEL_WASM);
     const bytes = new Uint8Array(bin.length);
     for (let i = 0; i < bin.length; i++) bytes[i] = bin.charCodeAt(i);
     const abort = () => {
       throw new Error("projection kernel: internal error");
     };
-    kernel = new WebAssembly.Instance(new WebAssembly.Module(bytes), { env: { abort } }).exports as unknown as KernelExports;
+    try {
+      kernel = new WebAssembly.Instance(new WebAssembly.Module(bytes), { env: { abort } }).exports as unknown as KernelExports;
+    } catch {
+      kernel = null;
+    }
   }
   return kernel;
 }
@@ -60,25 +66,11 @@ function instance(): KernelExports {
 /** The rule kinds quota() in the kernel knows. */
 const RULE_KINDS_IN_KERNEL: ReadonlySet<string> = new Set(["no-harvest", "constant-catch", "constant-rate", "constant-escapement", "threshold"]);
 
-/** True when the kernel can run this loop: a one-number state, and a family and a rule kind it knows. */
+/** True when the kernel can run this loop: a one-number state, a family and a rule kind it knows, and an engine with WebAssembly SIMD. */
 export function kernelApplies(loop: ClosedLoop): boolean {
-  return loop.layout.dimension === 1 && FAMILY_CODES[loop.model.family] !== undefined && RULE_KINDS_IN_KERNEL.has(loop.rule.kind) && kernelCompiles();
+  return loop.layout.dimension === 1 && FAMILY_CODES[loop.model.family] !== undefined && RULE_KINDS_IN_KERNEL.has(loop.rule.kind) && instance() !== null;
 }
 
-let compiles: boolean | null = null;
-
-/** False on an engine without WebAssembly SIMD (the TypeScript loop runs instead). */
-function kernelCompiles(): boolean {
-  if (compiles === null) {
-    try {
-      instance();
-      compiles = true;
-    } catch {
-      compiles = false;
-    }
-  }
-  return compiles;
-}
 
 /** The four numbers the kernel reads per parameter set (see production() in the kernel). */
 function modelParams(m: Model): [number, number, number, number] {
@@ -136,6 +128,7 @@ class Layout {
  */
 export function kernelBlocks(parts: ProjectionParts, scenario: Scenario, u: Uncertainty, rule: Rule, loops: readonly ClosedLoop[], states: Iterator<readonly number[]>): void {
   const k = instance();
+  if (!k) throw new Error("projection kernel: not compiled (check kernelApplies first)");
   const H = scenario.horizon;
   const K = scenario.model.params.K!;
   const [from, to] = parts.blocks;
