@@ -10,7 +10,7 @@ import { analyseStability } from "../../src/equilibria/stability.js";
 import { MARGIN_PARAMETER } from "../../src/sim/rule-comparison.js";
 import { toCsv, type Cell } from "../export/csv.js";
 import { CAUTION } from "../export/report.js";
-import { formatNumber } from "../export/text.js";
+import { formatCell, formatNumber } from "../export/text.js";
 import { scenarioOnly } from "../http/scenario-input.js";
 import { comparisonTable, projectionTable, riskTable, type Table } from "../export/tables.js";
 import { jsonSafe } from "../http/json-safe.js";
@@ -41,8 +41,7 @@ function emit(o: CommonOptions, value: unknown, table: Table | null, text: () =>
 }
 
 function textTable(t: Table): string {
-  const rows: Cell[][] = [t.header, ...t.rows];
-  const cells = rows.map((r) => r.map((c) => (typeof c === "number" ? fmt(c) : String(c ?? "—"))));
+  const cells = [t.header, ...t.rows.map((r) => r.map((c, i) => formatCell(t.header[i], c)))];
   const widths = t.header.map((_, i) => Math.max(...cells.map((r) => (r[i] ?? "").length)));
   return cells.map((r) => r.map((c, i) => (i === 0 ? c.padEnd(widths[i]!) : c.padStart(widths[i]!))).join("  ")).join("\n");
 }

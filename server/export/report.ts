@@ -6,7 +6,7 @@ import type { StabilityMargin } from "../../src/equilibria/margin.js";
 import type { StochasticProjection } from "../../src/sim/risk-metrics.js";
 import type { ResultRecord } from "../store/repository.js";
 import { fanChartSvg } from "./svg-chart.js";
-import { escapeHtml, formatNumber } from "./text.js";
+import { escapeHtml, formatCell, formatNumber } from "./text.js";
 import { comparisonTable, projectionTable, riskTable, ruleText, type Table } from "./tables.js";
 
 export const CAUTION =
@@ -31,7 +31,7 @@ const num = (v: unknown, digits = 4) => escapeHtml(formatNumber(v, digits));
 
 function table(t: Table, caption: string): string {
   const head = t.header.map((h) => `<th scope="col">${esc(h)}</th>`).join("");
-  const body = t.rows.map((r) => `<tr>${r.map((c) => `<td>${typeof c === "number" ? num(c) : esc(c ?? "—")}</td>`).join("")}</tr>`).join("");
+  const body = t.rows.map((r) => `<tr>${r.map((c, i) => `<td>${esc(formatCell(t.header[i], c))}</td>`).join("")}</tr>`).join("");
   return `<table><caption>${esc(caption)}</caption><thead><tr>${head}</tr></thead><tbody>${body}</tbody></table>`;
 }
 

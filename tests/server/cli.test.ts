@@ -32,6 +32,14 @@ describe("yieldloop command line", { timeout: 60_000 }, () => {
     expect(lines[0]!.startsWith("year,abundance p5 (stock units)")).toBe(true);
     expect(lines[1]!.startsWith("2028,780,")).toBe(true);
   });
+  it("project as text: years as written (2028, not 2,028), quantities with separators", () => {
+    const r = run("project", demo("scenarios/skerra-deer.json"), "--replicates", "200", "--workers", "1");
+    expect(r.status).toBe(0);
+    expect(r.stdout).toMatch(/^2028 +780 /m);
+    expect(r.stdout).toMatch(/^2048 /m);
+    expect(r.stdout).not.toMatch(/^2,0\d\d/m);
+    expect(r.stdout).toMatch(/\d,\d{3}/); // abundances above 1,000 keep their separator
+  });
   it("compare: the scenario's own rule and its alternatives, one row each", () => {
     const r = run("compare", demo("scenarios/skerra-deer.json"), "--replicates", "200", "--workers", "1", "--json");
     expect(r.status).toBe(0);
