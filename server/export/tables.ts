@@ -30,7 +30,7 @@ export function riskTable(p: StochasticProjection): Table {
     ["average annual variation in catch", r.averageAnnualVariation, null, "fraction"],
     ["fraction of years with zero catch", r.zeroCatchFraction, null, "fraction"],
     ["replicates", p.replicates, null, "count"],
-    ["seed", p.seed, null, "integer"],
+    ["seed", String(p.seed), null, "integer"], // a label, written as is (2028, not 2,028)
   ];
   return { header: ["metric", "value", "standard error", "unit"], rows };
 }

@@ -33,8 +33,9 @@ describe("yieldloop command line", { timeout: 60_000 }, () => {
     expect(lines[1]!.startsWith("2028,780,")).toBe(true);
   });
   it("project as text: years as written (2028, not 2,028), quantities with separators", () => {
-    const r = run("project", demo("scenarios/skerra-deer.json"), "--replicates", "200", "--workers", "1");
+    const r = run("project", demo("scenarios/skerra-deer.json"), "--replicates", "200", "--workers", "1", "--seed", "2028");
     expect(r.status).toBe(0);
+    expect(r.stdout).toMatch(/^seed +2028 /m);
     expect(r.stdout).toMatch(/^2028 +780 /m);
     expect(r.stdout).toMatch(/^2048 /m);
     expect(r.stdout).not.toMatch(/^2,0\d\d/m);
