@@ -2,7 +2,10 @@
 // disturbed) of several trials; the Python references report their best trial too.
 
 /** Runs `run` `trials` times; the shortest run in seconds, and the last run's value. */
-export async function bestOf<T>(trials: number, run: () => T | Promise<T>): Promise<{ seconds: number; last: T }> {
+export async function bestOf<T>(
+  trials: number,
+  run: () => T | Promise<T>,
+): Promise<{ seconds: number; last: T }> {
   let seconds = Infinity;
   let last!: T;
   for (let trial = 0; trial < trials; trial++) {

@@ -27,9 +27,19 @@ function benchSeries(): Series {
     ab.push(n);
     const c = (0.05 + (0.55 * t) / (years - 1)) * n;
     catches.push(c);
-    n = projectThroughCatches(r.value, "after", n, [c, 0], [0, 0])!.abundance[1]! * Math.exp(0.05 * standardNormal(u));
+    n =
+      projectThroughCatches(r.value, "after", n, [c, 0], [0, 0])!.abundance[1]! *
+      Math.exp(0.05 * standardNormal(u));
   }
-  return { years: ab.map((_, i) => i), count: ab.map((a) => 0.01 * a * Math.exp(0.15 * standardNormal(u))), catch: catches, stocking: ab.map(() => 0), cv: ab.map(() => null), indices: {}, warnings: [] };
+  return {
+    years: ab.map((_, i) => i),
+    count: ab.map((a) => 0.01 * a * Math.exp(0.15 * standardNormal(u))),
+    catch: catches,
+    stocking: ab.map(() => 0),
+    cv: ab.map(() => null),
+    indices: {},
+    warnings: [],
+  };
 }
 
 export async function fitBench(): Promise<void> {
@@ -46,7 +56,17 @@ export async function fitBench(): Promise<void> {
   let sse = 0;
   series.count.forEach((y, t) => (sse += (Math.log(y!) - Math.log(ev.predicted[t]!)) ** 2));
   const natural = problem.natural(opt.x);
-  console.log(JSON.stringify({ bench: "ricker-fit", impl: "yieldloop", seconds, trials: 50, sse, params: [...natural, ev.q], converged: opt.converged }));
+  console.log(
+    JSON.stringify({
+      bench: "ricker-fit",
+      impl: "yieldloop",
+      seconds,
+      trials: 50,
+      sse,
+      params: [...natural, ev.q],
+      converged: opt.converged,
+    }),
+  );
   if (havePythonNumpy()) {
     const dir = mkdtempSync(join(tmpdir(), "yieldloop-bench-"));
     const file = join(dir, "series.json");
@@ -56,14 +76,30 @@ export async function fitBench(): Promise<void> {
     // scipy starts from the generating values (r 0.9, K 10,000, N0 8,000, q 0.01): from
     // yieldloop's automatic start values it stops at a local optimum on this series.
     void q0;
-    writeFileSync(file, JSON.stringify({ count: series.count, catch: series.catch, start: [0.9, 10000, 8000, 0.01] }));
+    writeFileSync(
+      file,
+      JSON.stringify({ count: series.count, catch: series.catch, start: [0.9, 10000, 8000, 0.01] }),
+    );
     const ref = runReference("ricker_fit_scipy.py", [file, "20"]);
     const rel = Math.abs(sse - (ref.sse as number)) / (ref.sse as number);
-    console.log(JSON.stringify({ ...ref, speedup: (ref.seconds as number) / seconds, objectiveRelativeDifference: rel, sameOptimum: rel < 1e-6, target: "speedup ≥ 10 at objective within 1e-6" }));
-  } else console.log(JSON.stringify({ bench: "ricker-fit", impl: "scipy", skipped: "python3 with numpy not found" }));
+    console.log(
+      JSON.stringify({
+        ...ref,
+        speedup: (ref.seconds as number) / seconds,
+        objectiveRelativeDifference: rel,
+        sameOptimum: rel < 1e-6,
+        target: "speedup ≥ 10 at objective within 1e-6",
+      }),
+    );
+  } else
+    console.log(
+      JSON.stringify({ bench: "ricker-fit", impl: "scipy", skipped: "python3 with numpy not found" }),
+    );
 
   // All families (delay 0 and 1) on the demo lake series, then a 1,000-draw bootstrap of the best.
-  const lake = parseSeriesCsv(readFileSync(new URL("../data-demo/tarnvell-perch/series.csv", import.meta.url), "utf8"));
+  const lake = parseSeriesCsv(
+    readFileSync(new URL("../data-demo/tarnvell-perch/series.csv", import.meta.url), "utf8"),
+  );
   if (!lake.ok) throw new Error(JSON.stringify(lake.issue));
   const t0 = process.hrtime.bigint();
   const cmp = compareModels(lake.value);
@@ -72,5 +108,19 @@ export async function fitBench(): Promise<void> {
   const best = cmp.value.fits[0]!;
   const boot = parametricBootstrap(lake.value, best, best.free, 1000, 7);
   const t2 = process.hrtime.bigint();
-  console.log(JSON.stringify({ bench: "compare-and-bootstrap", impl: "yieldloop", models: cmp.value.fits.length, skipped: cmp.value.skipped.length, best: `${best.family} T=${best.delay}`, draws: boot.draws.length, failed: boot.failed, compareSeconds: Number(t1 - t0) / 1e9, bootstrapSeconds: Number(t2 - t1) / 1e9, totalSeconds: Number(t2 - t0) / 1e9, target: "total < 2 s" }));
+  console.log(
+    JSON.stringify({
+      bench: "compare-and-bootstrap",
+      impl: "yieldloop",
+      models: cmp.value.fits.length,
+      skipped: cmp.value.skipped.length,
+      best: `${best.family} T=${best.delay}`,
+      draws: boot.draws.length,
+      failed: boot.failed,
+      compareSeconds: Number(t1 - t0) / 1e9,
+      bootstrapSeconds: Number(t2 - t1) / 1e9,
+      totalSeconds: Number(t2 - t0) / 1e9,
+      target: "total < 2 s",
+    }),
+  );
 }

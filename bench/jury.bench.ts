@@ -49,13 +49,28 @@ export async function juryBench(): Promise<void> {
   const repeats = 20;
   const { seconds, last: stable } = await bestOf(10, () => {
     let s = 0;
-    for (let r = 0; r < repeats; r++) for (let i = 0; i < flat.length; i++) if (juryVerdict(flat[i]!) === 1) s++;
+    for (let r = 0; r < repeats; r++)
+      for (let i = 0; i < flat.length; i++) if (juryVerdict(flat[i]!) === 1) s++;
     return s;
   });
   const rate = (repeats * flat.length) / seconds;
-  console.log(JSON.stringify({ bench: "jury-verdicts", impl: "yieldloop", polynomials: flat.length, repeats, trials: 10, bestSeconds: seconds, verdictsPerSecond: rate, stableFraction: stable / (repeats * flat.length), target: 1e7 }));
+  console.log(
+    JSON.stringify({
+      bench: "jury-verdicts",
+      impl: "yieldloop",
+      polynomials: flat.length,
+      repeats,
+      trials: 10,
+      bestSeconds: seconds,
+      verdictsPerSecond: rate,
+      stableFraction: stable / (repeats * flat.length),
+      target: 1e7,
+    }),
+  );
   if (!havePythonNumpy()) {
-    console.log(JSON.stringify({ bench: "jury-verdicts", impl: "reference", skipped: "python3 with numpy not found" }));
+    console.log(
+      JSON.stringify({ bench: "jury-verdicts", impl: "reference", skipped: "python3 with numpy not found" }),
+    );
     return;
   }
   const dir = mkdtempSync(join(tmpdir(), "yieldloop-bench-"));
@@ -68,6 +83,13 @@ export async function juryBench(): Promise<void> {
     let disagree = 0;
     for (let i = 0; i < theirs.length; i++) if ((verdicts[i] === 1 ? 1 : -1) !== theirs[i]) disagree++;
     const { verdicts: _v, ...summary } = ref;
-    console.log(JSON.stringify({ ...summary, sameVerdicts: disagree === 0, disagreements: disagree, speedup: rate / (ref.verdictsPerSecond as number) }));
+    console.log(
+      JSON.stringify({
+        ...summary,
+        sameVerdicts: disagree === 0,
+        disagreements: disagree,
+        speedup: rate / (ref.verdictsPerSecond as number),
+      }),
+    );
   }
 }

@@ -20,7 +20,13 @@ function body(i: number): string {
     kind: "stability",
     scenario: {
       model: { family: "ricker", params: { r: 1.2 + (i % 7) * 0.1, K: 1000 } },
-      rule: { kind: "threshold", lowerTrigger: 200, upperTrigger: 500, maxRate: 0.05 + ((i * 0.618) % 0.6), surveyLag: i % 3 },
+      rule: {
+        kind: "threshold",
+        lowerTrigger: 200,
+        upperTrigger: 500,
+        maxRate: 0.05 + ((i * 0.618) % 0.6),
+        surveyLag: i % 3,
+      },
       start: 600,
       horizon: 20,
     },
@@ -36,7 +42,11 @@ async function startServer(): Promise<{ url: string; stop: () => Promise<void> }
   const dir = mkdtempSync(join(tmpdir(), "yieldloop-load-"));
   const db = join(dir, "load.db");
   const cli = fileURLToPath(new URL("../server/cli/main.ts", import.meta.url));
-  const child = spawn(process.execPath, ["--import", "tsx", cli, "serve", "--port", "0", "--db", db, "--workers", "1"], { stdio: ["ignore", "pipe", "inherit"] });
+  const child = spawn(
+    process.execPath,
+    ["--import", "tsx", cli, "serve", "--port", "0", "--db", db, "--workers", "1"],
+    { stdio: ["ignore", "pipe", "inherit"] },
+  );
   const url = await new Promise<string>((resolve, reject) => {
     let out = "";
     child.stdout!.on("data", (c: Buffer) => {
@@ -65,7 +75,14 @@ function run(url: string, seconds: number, latencies: number[] | null): Promise<
         url,
         connections: CONNECTIONS,
         duration: seconds,
-        requests: [{ method: "POST", path: "/api/v1/analyses", headers: { "content-type": "application/json" }, setupRequest: (req) => ({ ...req, body: body(i++) }) }],
+        requests: [
+          {
+            method: "POST",
+            path: "/api/v1/analyses",
+            headers: { "content-type": "application/json" },
+            setupRequest: (req) => ({ ...req, body: body(i++) }),
+          },
+        ],
       },
       (err, result) => (err ? reject(err) : resolve(result)),
     );
@@ -95,7 +112,12 @@ export async function loadBench(): Promise<void> {
         requestsPerSecond: result.requests.average,
         non2xx: result.non2xx,
         errors: result.errors,
-        latencyMs: { p50: percentile(latencies, 50), p95: percentile(latencies, 95), p99: percentile(latencies, 99), max: latencies[latencies.length - 1] },
+        latencyMs: {
+          p50: percentile(latencies, 50),
+          p95: percentile(latencies, 95),
+          p99: percentile(latencies, 99),
+          max: latencies[latencies.length - 1],
+        },
         target: { p95Ms: 50 },
       }),
     );

@@ -53,7 +53,13 @@ export async function projectionBench(): Promise<void> {
     );
   }
   if (!havePythonNumpy()) {
-    console.log(JSON.stringify({ bench: "stochastic-projection", impl: "numpy", skipped: "python3 with numpy not found" }));
+    console.log(
+      JSON.stringify({
+        bench: "stochastic-projection",
+        impl: "numpy",
+        skipped: "python3 with numpy not found",
+      }),
+    );
     return;
   }
   console.log(JSON.stringify(runReference("projection_numpy.py", [String(REPLICATES), String(YEARS), "3"])));

@@ -24,11 +24,26 @@ export async function regimeMapBench(): Promise<void> {
     if (!map.ok) throw new Error(JSON.stringify(map.issue));
     const counts: Record<string, number> = {};
     for (const v of map.regimes) counts[map.regimeNames[v]!] = (counts[map.regimeNames[v]!] ?? 0) + 1;
-    console.log(JSON.stringify({ bench: "regime-map", impl: "yieldloop", workers: threads, cells: N * N, bestSeconds: seconds, trials: 3, regimeCounts: counts, boundaryPoints: map.boundary.length }));
+    console.log(
+      JSON.stringify({
+        bench: "regime-map",
+        impl: "yieldloop",
+        workers: threads,
+        cells: N * N,
+        bestSeconds: seconds,
+        trials: 3,
+        regimeCounts: counts,
+        boundaryPoints: map.boundary.length,
+      }),
+    );
   }
   if (!havePythonNumpy()) {
-    console.log(JSON.stringify({ bench: "regime-map", impl: "numpy", skipped: "python3 with numpy not found" }));
+    console.log(
+      JSON.stringify({ bench: "regime-map", impl: "numpy", skipped: "python3 with numpy not found" }),
+    );
     return;
   }
-  console.log(JSON.stringify(runReference("regime_map_numpy.py", [String(N), String(N), "1000", "128", "3"])));
+  console.log(
+    JSON.stringify(runReference("regime_map_numpy.py", [String(N), String(N), "1000", "128", "3"])),
+  );
 }

@@ -24,7 +24,16 @@ function closedLoopSteps(): void {
   const t0 = process.hrtime.bigint();
   for (let i = 0; i < steps; i++) loop.step(x, x);
   const seconds = Number(process.hrtime.bigint() - t0) / 1e9;
-  console.log(JSON.stringify({ bench: "closed-loop-steps", impl: "yieldloop", steps, seconds, stepsPerSecond: steps / seconds, final: x[0] }));
+  console.log(
+    JSON.stringify({
+      bench: "closed-loop-steps",
+      impl: "yieldloop",
+      steps,
+      seconds,
+      stepsPerSecond: steps / seconds,
+      final: x[0],
+    }),
+  );
 }
 
 const benches: Record<string, () => void | Promise<void>> = {

@@ -13,6 +13,14 @@ const passed = report.numPassedTests ?? 0;
 const skipped = (report.numPendingTests ?? 0) + (report.numTodoTests ?? 0);
 console.log(`${passed} passed, ${report.numFailedTests ?? 0} failed${skipped ? `, ${skipped} skipped` : ""}`);
 // Say plainly when the browser tests did not run, and how to run them.
-const browserSkipped = (report.testResults ?? []).some((f) => /tests[\\/]e2e[\\/]/.test(f.name) && (f.assertionResults ?? []).some((t) => t.status === "pending" || t.status === "skipped"));
-if (browserSkipped) console.log("browser tests skipped: Debian's chromium was not found at /usr/bin/chromium (install it with `apt-get install -y chromium`, or set YIELDLOOP_CHROMIUM to its path)");
-if ((report.numFailedTests ?? 0) > 0 || (report.numFailedTestSuites ?? 0) > 0 || passed === 0) process.exit(1);
+const browserSkipped = (report.testResults ?? []).some(
+  (f) =>
+    /tests[\\/]e2e[\\/]/.test(f.name) &&
+    (f.assertionResults ?? []).some((t) => t.status === "pending" || t.status === "skipped"),
+);
+if (browserSkipped)
+  console.log(
+    "browser tests skipped: Debian's chromium was not found at /usr/bin/chromium (install it with `apt-get install -y chromium`, or set YIELDLOOP_CHROMIUM to its path)",
+  );
+if ((report.numFailedTests ?? 0) > 0 || (report.numFailedTestSuites ?? 0) > 0 || passed === 0)
+  process.exit(1);

@@ -35,9 +35,14 @@ export function scenarioOfFile(d: DemoScenarioFile): Record<string, unknown> {
 }
 
 /** Loads the demo data; returns what was added (nothing on a second run). */
-export function loadDemo(repo: Repository, dir = DEMO_DIR): { series: number; scenarios: number; rules: number } {
+export function loadDemo(
+  repo: Repository,
+  dir = DEMO_DIR,
+): { series: number; scenarios: number; rules: number } {
   const added = { series: 0, scenarios: 0, rules: 0 };
-  const files = readdirSync(join(dir, "scenarios")).filter((f) => f.endsWith(".json")).sort();
+  const files = readdirSync(join(dir, "scenarios"))
+    .filter((f) => f.endsWith(".json"))
+    .sort();
   for (const f of files) {
     const d = JSON.parse(readFileSync(join(dir, "scenarios", f), "utf8")) as DemoScenarioFile;
     if (d.series) {

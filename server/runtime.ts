@@ -10,7 +10,11 @@ import { Repository } from "./store/repository.js";
 import { createAnalysisPool, type AnalysisPool } from "./workers/pool.js";
 import { startQuickAnalyses } from "./workers/quick-analyses.js";
 
-export const PROGRAM_VERSION: string = (JSON.parse(readFileSync(fileURLToPath(new URL("../package.json", import.meta.url)), "utf8")) as { version: string }).version;
+export const PROGRAM_VERSION: string = (
+  JSON.parse(readFileSync(fileURLToPath(new URL("../package.json", import.meta.url)), "utf8")) as {
+    version: string;
+  }
+).version;
 
 export const DEFAULT_LIMITS: Limits = { jsonBody: "1mb", csvBody: "2mb" };
 
@@ -42,7 +46,16 @@ export function createRuntime(o: RuntimeOptions): Runtime {
   const jobs = new JobRunner(repo);
   const pool = createAnalysisPool(o.workers ?? 2);
   const quick = startQuickAnalyses();
-  const app = createApp({ repo, jobs, pool, quick, version: PROGRAM_VERSION, limits: o.limits ?? DEFAULT_LIMITS, ...(o.token ? { token: o.token } : {}), ...(o.staticDir ? { staticDir: o.staticDir } : {}) });
+  const app = createApp({
+    repo,
+    jobs,
+    pool,
+    quick,
+    version: PROGRAM_VERSION,
+    limits: o.limits ?? DEFAULT_LIMITS,
+    ...(o.token ? { token: o.token } : {}),
+    ...(o.staticDir ? { staticDir: o.staticDir } : {}),
+  });
   return {
     app,
     db,

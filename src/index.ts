@@ -4,9 +4,24 @@ export { describeIssue, rangeText, type Issue, type IssueCode } from "./issues.j
 export { MAX_ABUNDANCE, type ParamInfo } from "./params.js";
 
 // Growth models
-export { FAMILY_IDS, production, productionSlope, densityTerm, type FamilyId, type GrowthFamily, type Params } from "./models/growth-family.js";
+export {
+  FAMILY_IDS,
+  production,
+  productionSlope,
+  densityTerm,
+  type FamilyId,
+  type GrowthFamily,
+  type Params,
+} from "./models/growth-family.js";
 export { families } from "./models/families.js";
-export { parseModel, withParams, modelSpecSchema, MAX_DELAY, type Model, type ModelSpec } from "./models/model-spec.js";
+export {
+  parseModel,
+  withParams,
+  modelSpecSchema,
+  MAX_DELAY,
+  type Model,
+  type ModelSpec,
+} from "./models/model-spec.js";
 export { discreteLogistic } from "./models/discrete-logistic.js";
 export { ricker } from "./models/ricker.js";
 export { bevertonHolt } from "./models/beverton-holt.js";
@@ -25,19 +40,57 @@ export {
 
 // Harvest and stocking rules
 export { RULE_KINDS, type HarvestRule, type RuleKind } from "./policy/harvest-rule.js";
-export { parseRule, ruleSpecSchema, RULE_SETTINGS, TIMINGS, MAX_SURVEY_LAG, type Rule, type RuleSpec, type RuleSpecInput, type Timing } from "./policy/rule-spec.js";
-export { closedLoop, stateLayout, type ClosedLoop, type StateLayout, type StepRecord, type StepNoise } from "./policy/closed-loop.js";
+export {
+  parseRule,
+  ruleSpecSchema,
+  RULE_SETTINGS,
+  TIMINGS,
+  MAX_SURVEY_LAG,
+  type Rule,
+  type RuleSpec,
+  type RuleSpecInput,
+  type Timing,
+} from "./policy/rule-spec.js";
+export {
+  closedLoop,
+  stateLayout,
+  type ClosedLoop,
+  type StateLayout,
+  type StepRecord,
+  type StepNoise,
+} from "./policy/closed-loop.js";
 export { capQuota } from "./policy/quota-cap.js";
 export { msy, type MsyQuantities } from "./policy/msy.js";
 
 // Projection
 export { parseScenario, MAX_HORIZON, type Scenario } from "./sim/scenario.js";
 export { project, projectLoop, UNBOUNDED_FACTOR, type Projection } from "./sim/project.js";
-export { parseUncertainty, uncertaintySchema, UNCERTAINTY_SETTINGS, MAX_REPLICATES, MAX_PARAMETER_SETS, type Uncertainty, type UncertaintyInput } from "./sim/uncertainty.js";
+export {
+  parseUncertainty,
+  uncertaintySchema,
+  UNCERTAINTY_SETTINGS,
+  MAX_REPLICATES,
+  MAX_PARAMETER_SETS,
+  type Uncertainty,
+  type UncertaintyInput,
+} from "./sim/uncertainty.js";
 export { simulateBlocks, projectionBlocks, type ProjectionParts } from "./sim/stochastic-projection.js";
-export { summariseProjection, PERCENTILE_LEVELS, type StochasticProjection, type RiskMetrics, type Estimate } from "./sim/risk-metrics.js";
+export {
+  summariseProjection,
+  PERCENTILE_LEVELS,
+  type StochasticProjection,
+  type RiskMetrics,
+  type Estimate,
+} from "./sim/risk-metrics.js";
 export { projectStochastic } from "./sim/stochastic-run.js";
-export { compareRules, ruleOutcome, parseRules, MARGIN_PARAMETER, MAX_COMPARED_RULES, type RuleOutcome } from "./sim/rule-comparison.js";
+export {
+  compareRules,
+  ruleOutcome,
+  parseRules,
+  MARGIN_PARAMETER,
+  MAX_COMPARED_RULES,
+  type RuleOutcome,
+} from "./sim/rule-comparison.js";
 export { robustVerdict, ROBUST_CLASSES, type RobustVerdict, type RobustClass } from "./sim/robust-verdict.js";
 export { zigguratNormal, type IntSource } from "./sim/ziggurat.js";
 
@@ -49,16 +102,56 @@ export { maximiseOnInterval } from "./numeric/golden-section.js";
 export { findEquilibria, type Equilibrium, type EquilibriumSet } from "./equilibria/equilibria.js";
 export { steadyState, equilibriumResidual } from "./equilibria/steady-state.js";
 export { linearise, characteristicPolynomial, type Linearisation } from "./equilibria/jacobian.js";
-export { juryTest, JURY_TOLERANCE, type JuryTable, type JuryCondition, type JuryVerdict } from "./equilibria/jury.js";
+export {
+  juryTest,
+  JURY_TOLERANCE,
+  type JuryTable,
+  type JuryCondition,
+  type JuryVerdict,
+} from "./equilibria/jury.js";
 export { juryVerdict, type JuryCode } from "./equilibria/jury-verdict.js";
-export { eigenvalues, companionMatrix, polynomialRoots, modulus, type Complex } from "./equilibria/eigenvalues.js";
-export { classifyEquilibrium, STABILITY_KINDS, type StabilityKind, type StabilityVerdict } from "./equilibria/classify.js";
-export { analyseStability, equilibriumStability, type StabilityAnalysis, type EquilibriumStability } from "./equilibria/stability.js";
+export {
+  eigenvalues,
+  companionMatrix,
+  polynomialRoots,
+  modulus,
+  type Complex,
+} from "./equilibria/eigenvalues.js";
+export {
+  classifyEquilibrium,
+  STABILITY_KINDS,
+  type StabilityKind,
+  type StabilityVerdict,
+} from "./equilibria/classify.js";
+export {
+  analyseStability,
+  equilibriumStability,
+  type StabilityAnalysis,
+  type EquilibriumStability,
+} from "./equilibria/stability.js";
 export { stabilityMargin, type StabilityMargin, type MarginSide } from "./equilibria/margin.js";
-export { parameterAxis, parameterPaths, withParameter, type ParameterAxis } from "./equilibria/parameter-path.js";
-export { longRun, longRunBatch, REGIMES, MAX_PERIOD, type LongRun, type Regime, type LongRunOptions } from "./equilibria/long-run.js";
+export {
+  parameterAxis,
+  parameterPaths,
+  withParameter,
+  type ParameterAxis,
+} from "./equilibria/parameter-path.js";
+export {
+  longRun,
+  longRunBatch,
+  REGIMES,
+  MAX_PERIOD,
+  type LongRun,
+  type Regime,
+  type LongRunOptions,
+} from "./equilibria/long-run.js";
 export { lyapunovExponent } from "./equilibria/lyapunov.js";
-export { bifurcationDiagram, axisValues, type BifurcationDiagram, type SweepAxis } from "./equilibria/bifurcation.js";
+export {
+  bifurcationDiagram,
+  axisValues,
+  type BifurcationDiagram,
+  type SweepAxis,
+} from "./equilibria/bifurcation.js";
 export { regimeMap, type RegimeMap, type RegimeMapOptions } from "./equilibria/regime-map.js";
 export { operatingVerdict } from "./equilibria/operating-verdict.js";
 
@@ -69,7 +162,14 @@ export { brentRoot } from "./numeric/brent-root.js";
 // Fitting
 export { parseSeriesCsv, MAX_SERIES_ROWS, type Series, type SeriesWarning } from "./fit/series.js";
 export { LIKELIHOODS, negLogLikelihood, cvWeights, type LikelihoodKind } from "./fit/likelihood.js";
-export { fitProblem, optimiseFit, FIT_METHODS, type FitMethod, type FitOptions, type FitProblem } from "./fit/fit-model.js";
+export {
+  fitProblem,
+  optimiseFit,
+  FIT_METHODS,
+  type FitMethod,
+  type FitOptions,
+  type FitProblem,
+} from "./fit/fit-model.js";
 export { fitSeries, summarise, type SeriesFit, type IdentifiabilityProblem } from "./fit/fit-series.js";
 export { compareModels, type ModelComparison } from "./fit/compare-models.js";
 export { profileInterval, CHI2_1_95, type ProfileInterval } from "./fit/profile-likelihood.js";

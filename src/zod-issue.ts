@@ -48,8 +48,20 @@ export function issueFromZod(
       }
       const bound = Number(first.code === "too_small" ? first.minimum : first.maximum);
       return first.code === "too_small"
-        ? { code: "param_out_of_range", field, value: Number(value), min: bound, minInclusive: first.inclusive ?? true }
-        : { code: "param_out_of_range", field, value: Number(value), max: bound, maxInclusive: first.inclusive ?? true };
+        ? {
+            code: "param_out_of_range",
+            field,
+            value: Number(value),
+            min: bound,
+            minInclusive: first.inclusive ?? true,
+          }
+        : {
+            code: "param_out_of_range",
+            field,
+            value: Number(value),
+            max: bound,
+            maxInclusive: first.inclusive ?? true,
+          };
     }
     case "invalid_value":
       return {

@@ -27,21 +27,41 @@ describe("model spec validation", () => {
     const r = parseModel({ family: "ricker", params: { r: 1, K: 0 } });
     expect(r).toEqual({
       ok: false,
-      issue: { code: "param_out_of_range", field: "model.params.K", value: 0, min: 0, max: 1e12, minInclusive: false, maxInclusive: true },
+      issue: {
+        code: "param_out_of_range",
+        field: "model.params.K",
+        value: 0,
+        min: 0,
+        max: 1e12,
+        minInclusive: false,
+        maxInclusive: true,
+      },
     });
-    if (!r.ok) expect(describeIssue(r.issue)).toBe("model.params.K = 0 is outside the allowed range (0, 1000000000000]");
+    if (!r.ok)
+      expect(describeIssue(r.issue)).toBe(
+        "model.params.K = 0 is outside the allowed range (0, 1000000000000]",
+      );
   });
 
   it("NaN and Infinity are refused as not finite", () => {
     for (const bad of [Number.NaN, Infinity, -Infinity]) {
       const r = parseModel({ family: "beverton-holt", params: { R0: bad, K: 10 } });
-      expect(r.ok || r.issue).toEqual({ code: "not_finite", field: "model.params.R0", received: String(bad) });
+      expect(r.ok || r.issue).toEqual({
+        code: "not_finite",
+        field: "model.params.R0",
+        received: String(bad),
+      });
     }
   });
 
   it("a string where a number belongs is a wrong type", () => {
     const r = parseModel({ family: "ricker", params: { r: "1.2", K: 100 } });
-    expect(r.ok || r.issue).toEqual({ code: "wrong_type", field: "model.params.r", expected: "number", received: "string" });
+    expect(r.ok || r.issue).toEqual({
+      code: "wrong_type",
+      field: "model.params.r",
+      expected: "number",
+      received: "string",
+    });
   });
 
   it("a negative or fractional delay is refused", () => {
@@ -64,12 +84,24 @@ describe("model spec validation", () => {
 describe("rule spec validation", () => {
   it("an unknown rule kind lists the allowed ones", () => {
     const r = parseRule({ kind: "fixed-effort" });
-    expect(r.ok || r.issue).toMatchObject({ code: "unknown_rule", field: "rule.kind", value: "fixed-effort" });
+    expect(r.ok || r.issue).toMatchObject({
+      code: "unknown_rule",
+      field: "rule.kind",
+      value: "fixed-effort",
+    });
   });
 
   it("a harvest rate h ≥ 1 names the range [0, 1)", () => {
     const r = parseRule({ kind: "constant-rate", rate: 1 });
-    expect(r.ok || r.issue).toEqual({ code: "param_out_of_range", field: "rule.rate", value: 1, min: 0, max: 1, minInclusive: true, maxInclusive: false });
+    expect(r.ok || r.issue).toEqual({
+      code: "param_out_of_range",
+      field: "rule.rate",
+      value: 1,
+      min: 0,
+      max: 1,
+      minInclusive: true,
+      maxInclusive: false,
+    });
   });
 
   it("a negative survey lag is refused", () => {
@@ -79,7 +111,12 @@ describe("rule spec validation", () => {
 
   it("an unknown timing lists before and after", () => {
     const r = parseRule({ kind: "constant-rate", rate: 0.2, timing: "during" });
-    expect(r.ok || r.issue).toEqual({ code: "unknown_option", field: "rule.timing", value: "during", allowed: ["before", "after"] });
+    expect(r.ok || r.issue).toEqual({
+      code: "unknown_option",
+      field: "rule.timing",
+      value: "during",
+      allowed: ["before", "after"],
+    });
   });
 
   it("threshold triggers out of order are refused", () => {
@@ -88,12 +125,20 @@ describe("rule spec validation", () => {
   });
 
   it("a missing setting of the chosen rule is named", () => {
-    expect(parseRule({ kind: "constant-catch" })).toEqual({ ok: false, issue: { code: "missing_field", field: "rule.quota" } });
+    expect(parseRule({ kind: "constant-catch" })).toEqual({
+      ok: false,
+      issue: { code: "missing_field", field: "rule.quota" },
+    });
   });
 });
 
 describe("scenario validation and unbounded runs", () => {
-  const base = { model: { family: "ricker", params: { r: 1, K: 100 } }, rule: { kind: "no-harvest" }, start: 50, horizon: 10 };
+  const base = {
+    model: { family: "ricker", params: { r: 1, K: 100 } },
+    rule: { kind: "no-harvest" },
+    start: 50,
+    horizon: 10,
+  };
 
   it("names a bad start value by its index", () => {
     const r = parseScenario({ ...base, start: [50, -3] });
@@ -103,13 +148,25 @@ describe("scenario validation and unbounded runs", () => {
   it("refuses a fractional or missing horizon", () => {
     expect(parseScenario({ ...base, horizon: 2.5 }).ok).toBe(false);
     const { horizon: _h, ...noHorizon } = base;
-    expect(parseScenario(noHorizon)).toEqual({ ok: false, issue: { code: "missing_field", field: "horizon" } });
+    expect(parseScenario(noHorizon)).toEqual({
+      ok: false,
+      issue: { code: "missing_field", field: "horizon" },
+    });
   });
 
   it("an exploding run is reported as unbounded with only finite numbers", () => {
     // Log-linear Gompertz with r = 2.9: ln N − ln K is multiplied by 1 − r = −1.9 each year,
     // so the abundance leaves every bound within a few dozen years.
-    const p = project(unwrap(parseScenario({ model: { family: "gompertz", params: { r: 2.9, K: 100 } }, rule: { kind: "no-harvest" }, start: 50, horizon: 500 })));
+    const p = project(
+      unwrap(
+        parseScenario({
+          model: { family: "gompertz", params: { r: 2.9, K: 100 } },
+          rule: { kind: "no-harvest" },
+          start: 50,
+          horizon: 500,
+        }),
+      ),
+    );
     expect(p.status).toBe("unbounded");
     expect(p.years.length).toBeLessThan(500);
     for (const series of [p.abundance, p.catch, p.survey, p.quota]) {

@@ -26,5 +26,8 @@ export function rule(spec: RuleSpecInput): Rule {
 export function expectClose(actual: number, expected: number, tol: number, what: string): void {
   const delta = Math.abs(actual - expected);
   const bound = tol * Math.max(1, Math.abs(expected));
-  expect(delta <= bound, `${what}: expected ${expected}, actual ${actual}, delta ${delta}, tol ${bound}`).toBe(true);
+  expect(
+    delta <= bound,
+    `${what}: expected ${expected}, actual ${actual}, delta ${delta}, tol ${bound}`,
+  ).toBe(true);
 }

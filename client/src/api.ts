@@ -21,7 +21,9 @@ export class ApiError extends Error {
 async function parse<T>(res: Response): Promise<T> {
   const type = res.headers.get("content-type") ?? "";
   if (!res.ok) {
-    const body = type.includes("json") ? ((await res.json()) as Problem) : { type: "about:blank", title: res.statusText, status: res.status, detail: await res.text() };
+    const body = type.includes("json")
+      ? ((await res.json()) as Problem)
+      : { type: "about:blank", title: res.statusText, status: res.status, detail: await res.text() };
     throw new ApiError(body);
   }
   if (res.status === 204) return undefined as T;
@@ -33,7 +35,14 @@ export async function getJson<T>(path: string): Promise<T> {
 }
 
 export async function postJson<T>(path: string, body: unknown, signal?: AbortSignal): Promise<T> {
-  return parse<T>(await fetch(path, { method: "POST", headers: { "Content-Type": "application/json" }, body: JSON.stringify(body), ...(signal ? { signal } : {}) }));
+  return parse<T>(
+    await fetch(path, {
+      method: "POST",
+      headers: { "Content-Type": "application/json" },
+      body: JSON.stringify(body),
+      ...(signal ? { signal } : {}),
+    }),
+  );
 }
 
 export async function postCsv<T>(path: string, csv: string): Promise<T> {
@@ -60,8 +69,12 @@ export interface JobView {
 export function watchJob(job: JobView, onProgress: (f: number) => void): Promise<JobView> {
   return new Promise((resolve, reject) => {
     const source = new EventSource(job.links.events);
-    source.addEventListener("progress", (e) => onProgress((JSON.parse((e as MessageEvent).data) as { progress: number }).progress));
-    source.addEventListener("status", (e) => onProgress((JSON.parse((e as MessageEvent).data) as JobView).progress));
+    source.addEventListener("progress", (e) =>
+      onProgress((JSON.parse((e as MessageEvent).data) as { progress: number }).progress),
+    );
+    source.addEventListener("status", (e) =>
+      onProgress((JSON.parse((e as MessageEvent).data) as JobView).progress),
+    );
     source.addEventListener("end", (e) => {
       source.close();
       resolve(JSON.parse((e as MessageEvent).data) as JobView);

@@ -30,7 +30,12 @@ function select(tab: HTMLButtonElement): void {
 tabs.forEach((t, i) => {
   t.addEventListener("click", () => select(t));
   t.addEventListener("keydown", (e) => {
-    const d = e.key === "ArrowDown" || e.key === "ArrowRight" ? 1 : e.key === "ArrowUp" || e.key === "ArrowLeft" ? -1 : 0;
+    const d =
+      e.key === "ArrowDown" || e.key === "ArrowRight"
+        ? 1
+        : e.key === "ArrowUp" || e.key === "ArrowLeft"
+          ? -1
+          : 0;
     if (!d) return;
     e.preventDefault();
     const next = tabs[(i + d + tabs.length) % tabs.length]!;

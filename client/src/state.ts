@@ -32,7 +32,14 @@ export const state = {
   start: [] as number[],
   horizon: 25,
   startYear: 0,
-  uncertainty: { replicates: 2000, seed: 1, processSd: 0.2, processAutocorrelation: 0, observationSd: 0.1, implementationSd: 0 } as Uncertainty,
+  uncertainty: {
+    replicates: 2000,
+    seed: 1,
+    processSd: 0.2,
+    processAutocorrelation: 0,
+    observationSd: 0.1,
+    implementationSd: 0,
+  } as Uncertainty,
   /** The demo (or stored) scenario the page started from, and its candidate rules. */
   scenarioName: "my scenario",
   candidates: [] as { id: string; name: string; spec: RuleSpec }[],
@@ -56,7 +63,13 @@ export function onChange(l: Listener): void {
 /** The scenario spec of the current choices (what the API's analyses take). */
 export function scenarioSpec(): Record<string, unknown> | null {
   if (!state.model) return null;
-  return { model: state.model, rule: state.rule, start: state.start.length ? state.start : [state.model.params.K! / 2], horizon: state.horizon, startYear: state.startYear };
+  return {
+    model: state.model,
+    rule: state.rule,
+    start: state.start.length ? state.start : [state.model.params.K! / 2],
+    horizon: state.horizon,
+    startYear: state.startYear,
+  };
 }
 
 /** Fit estimates that are not model parameters (start abundance, survey scale, dispersion). */

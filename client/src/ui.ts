@@ -4,7 +4,11 @@ import { ApiError, del, watchJob, type JobView } from "./api.js";
 type Child = Node | string | number | null | undefined | false;
 
 /** Creates an element with attributes (`on*` keys become listeners) and children. */
-export function el<K extends keyof HTMLElementTagNameMap>(tag: K, attrs: Record<string, unknown> = {}, ...children: Child[]): HTMLElementTagNameMap[K] {
+export function el<K extends keyof HTMLElementTagNameMap>(
+  tag: K,
+  attrs: Record<string, unknown> = {},
+  ...children: Child[]
+): HTMLElementTagNameMap[K] {
   const node = document.createElement(tag);
   for (const [k, v] of Object.entries(attrs)) {
     if (v === undefined || v === null || v === false) continue;
@@ -13,7 +17,8 @@ export function el<K extends keyof HTMLElementTagNameMap>(tag: K, attrs: Record<
     else if (k in node && typeof v !== "string") (node as unknown as Record<string, unknown>)[k] = v;
     else node.setAttribute(k, v === true ? "" : String(v));
   }
-  for (const c of children) if (c !== null && c !== undefined && c !== false) node.append(c instanceof Node ? c : String(c));
+  for (const c of children)
+    if (c !== null && c !== undefined && c !== false) node.append(c instanceof Node ? c : String(c));
   return node;
 }
 
@@ -36,13 +41,31 @@ export function table(caption: string, header: string[], rows: unknown[][], id?:
     { class: "data", ...(id ? { id } : {}) },
     el("caption", {}, caption),
     el("thead", {}, el("tr", {}, ...header.map((h) => el("th", { scope: "col" }, h)))),
-    el("tbody", {}, ...rows.map((r) => el("tr", {}, ...r.map((c) => (c instanceof Node ? el("td", {}, c) : el("td", { class: typeof c === "number" ? "num" : "" }, fmt(c))))))),
+    el(
+      "tbody",
+      {},
+      ...rows.map((r) =>
+        el(
+          "tr",
+          {},
+          ...r.map((c) =>
+            c instanceof Node
+              ? el("td", {}, c)
+              : el("td", { class: typeof c === "number" ? "num" : "" }, fmt(c)),
+          ),
+        ),
+      ),
+    ),
   );
 }
 
 /** Replaces a container's content. */
 export function show(container: Element, ...children: Child[]): void {
-  container.replaceChildren(...children.filter((c): c is Node | string => c !== null && c !== undefined && c !== false).map((c) => (c instanceof Node ? c : String(c))));
+  container.replaceChildren(
+    ...children
+      .filter((c): c is Node | string => c !== null && c !== undefined && c !== false)
+      .map((c) => (c instanceof Node ? c : String(c))),
+  );
 }
 
 /** A problem from the API, in words, with the field or row and column it names. */
@@ -74,11 +97,23 @@ export function setStatus(text: string): void {
  * Runs a job with a progress bar and a Cancel button in `container`; resolves with the
  * finished job, or null when it was cancelled or failed (the reason is shown).
  */
-export async function runJob(container: HTMLElement, label: string, start: () => Promise<{ job: JobView }>): Promise<JobView | null> {
+export async function runJob(
+  container: HTMLElement,
+  label: string,
+  start: () => Promise<{ job: JobView }>,
+): Promise<JobView | null> {
   const bar = el("progress", { max: 1, value: 0, "aria-label": `${label}: progress` });
   const text = el("span", { class: "progress-text" }, "starting…");
   let jobRef: JobView | null = null;
-  const cancel = el("button", { type: "button", class: "secondary", onclick: () => jobRef && void del(jobRef.links.self).catch(() => undefined) }, "Cancel");
+  const cancel = el(
+    "button",
+    {
+      type: "button",
+      class: "secondary",
+      onclick: () => jobRef && void del(jobRef.links.self).catch(() => undefined),
+    },
+    "Cancel",
+  );
   show(container, el("div", { class: "job" }, el("strong", {}, label), bar, text, cancel));
   try {
     const { job } = await start();
@@ -93,7 +128,16 @@ export async function runJob(container: HTMLElement, label: string, start: () =>
       text.textContent = "done";
       return end;
     }
-    show(container, el("p", { class: end.status === "cancelled" ? "note" : "error", role: "alert" }, end.status === "cancelled" ? `${label}: cancelled.` : `${label} failed: ${problemText(new ApiError({ type: "", title: "", status: 422, detail: describeJobError(end.error) }))}`));
+    show(
+      container,
+      el(
+        "p",
+        { class: end.status === "cancelled" ? "note" : "error", role: "alert" },
+        end.status === "cancelled"
+          ? `${label}: cancelled.`
+          : `${label} failed: ${problemText(new ApiError({ type: "", title: "", status: 422, detail: describeJobError(end.error) }))}`,
+      ),
+    );
     return null;
   } catch (e) {
     show(container, errorBox(e));

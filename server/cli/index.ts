@@ -97,7 +97,9 @@ export async function run(argv: string[]): Promise<void> {
       process.stderr.write(`yieldloop: ${e.message}\n`);
       process.exitCode = e.code;
     } else {
-      process.stderr.write(`yieldloop: internal error: ${e instanceof Error ? (e.stack ?? e.message) : String(e)}\n`);
+      process.stderr.write(
+        `yieldloop: internal error: ${e instanceof Error ? (e.stack ?? e.message) : String(e)}\n`,
+      );
       process.exitCode = EXIT.internal;
     }
   }

@@ -1,5 +1,8 @@
 // A progress bar on stderr for long work, drawn only when stderr is a terminal.
-export function progressBar(label: string, stream: NodeJS.WriteStream = process.stderr): { update(done: number, total: number): void; end(): void } {
+export function progressBar(
+  label: string,
+  stream: NodeJS.WriteStream = process.stderr,
+): { update(done: number, total: number): void; end(): void } {
   const tty = Boolean(stream.isTTY);
   let last = -1;
   return {
@@ -11,7 +14,9 @@ export function progressBar(label: string, stream: NodeJS.WriteStream = process.
       last = pct;
       const width = 30;
       const filled = Math.round(f * width);
-      stream.write(`\r${label} [${"#".repeat(filled)}${".".repeat(width - filled)}] ${String(pct).padStart(3)}%`);
+      stream.write(
+        `\r${label} [${"#".repeat(filled)}${".".repeat(width - filled)}] ${String(pct).padStart(3)}%`,
+      );
     },
     end() {
       if (tty && last >= 0) stream.write("\n");

@@ -33,5 +33,10 @@ export function readScenarioFile(path: string): ScenarioFile {
   const spec = raw && typeof raw === "object" && "model" in raw ? scenarioOfFile(raw) : raw;
   const parsed = parseScenarioSpec(spec, "scenario");
   if (!parsed.ok) throw new CliError(`${path}: ${describeIssue(parsed.issue)}`, EXIT.invalidInput);
-  return { title: typeof raw.title === "string" ? raw.title : path, spec: parsed.value.spec, scenario: parsed.value.scenario, alternatives: Array.isArray(raw.alternatives) ? raw.alternatives : [] };
+  return {
+    title: typeof raw.title === "string" ? raw.title : path,
+    spec: parsed.value.spec,
+    scenario: parsed.value.scenario,
+    alternatives: Array.isArray(raw.alternatives) ? raw.alternatives : [],
+  };
 }

@@ -31,7 +31,9 @@ const num = (v: unknown, digits = 4) => escapeHtml(formatNumber(v, digits));
 
 function table(t: Table, caption: string): string {
   const head = t.header.map((h) => `<th scope="col">${esc(h)}</th>`).join("");
-  const body = t.rows.map((r) => `<tr>${r.map((c, i) => `<td>${esc(formatCell(t.header[i], c))}</td>`).join("")}</tr>`).join("");
+  const body = t.rows
+    .map((r) => `<tr>${r.map((c, i) => `<td>${esc(formatCell(t.header[i], c))}</td>`).join("")}</tr>`)
+    .join("");
   return `<table><caption>${esc(caption)}</caption><thead><tr>${head}</tr></thead><tbody>${body}</tbody></table>`;
 }
 
@@ -44,24 +46,52 @@ function stabilitySection(s: StabilityAnalysis, margin: StabilityMargin | null):
   text += `<p>Dominant eigenvalue modulus ${num(v.dominantModulus)}${v.returnTime !== null ? `; return time ${num(v.returnTime, 3)} years` : ""}${v.period !== null ? `; oscillation period ${num(v.period, 3)} years` : ""}.</p>`;
   if (margin) {
     const side = (label: string, m: StabilityMargin["increase"]) =>
-      m.boundary === null ? `${label}: no change of stability up to ${num(m.searchedTo)}` : `${label}: stability ${margin.stableNow ? "is lost" : "is gained"} at ${num(m.boundary)} (${m.kind ?? "—"}; margin ${num(m.margin, 3)})`;
+      m.boundary === null
+        ? `${label}: no change of stability up to ${num(m.searchedTo)}`
+        : `${label}: stability ${margin.stableNow ? "is lost" : "is gained"} at ${num(m.boundary)} (${m.kind ?? "—"}; margin ${num(m.margin, 3)})`;
     text += `<p>Stability margin in <code>${esc(margin.parameter)}</code> (now ${num(margin.current)}): ${esc(side("raising it", margin.increase))}; ${esc(side("lowering it", margin.decrease))}.</p>`;
   }
   return text;
 }
 
 function fitSection(fit: ResultRecord): string {
-  const r = fit.result as { fits?: { family: string; delay: number; aicc: number; deltaAicc: number; weight: number; estimates: Record<string, number>; management?: { verdictLabel: string | null } }[] };
-  const rows = (r.fits ?? []).slice(0, 8).map((f) => [
-    `${f.family}${f.delay ? ` (delay ${f.delay})` : ""}`,
-    f.aicc,
-    f.deltaAicc,
-    f.weight,
-    f.estimates.r ?? f.estimates.R0 ?? null,
-    f.estimates.K ?? null,
-    f.management?.verdictLabel ?? "—",
-  ]);
-  return table({ header: ["model", "AICc", "ΔAICc", "Akaike weight", "r or R0", "K (stock units)", "unharvested verdict"], rows }, "Models fitted to the series, best first");
+  const r = fit.result as {
+    fits?: {
+      family: string;
+      delay: number;
+      aicc: number;
+      deltaAicc: number;
+      weight: number;
+      estimates: Record<string, number>;
+      management?: { verdictLabel: string | null };
+    }[];
+  };
+  const rows = (r.fits ?? [])
+    .slice(0, 8)
+    .map((f) => [
+      `${f.family}${f.delay ? ` (delay ${f.delay})` : ""}`,
+      f.aicc,
+      f.deltaAicc,
+      f.weight,
+      f.estimates.r ?? f.estimates.R0 ?? null,
+      f.estimates.K ?? null,
+      f.management?.verdictLabel ?? "—",
+    ]);
+  return table(
+    {
+      header: [
+        "model",
+        "AICc",
+        "ΔAICc",
+        "Akaike weight",
+        "r or R0",
+        "K (stock units)",
+        "unharvested verdict",
+      ],
+      rows,
+    },
+    "Models fitted to the series, best first",
+  );
 }
 
 export function reportHtml(input: ReportInput, nonce: string): string {
@@ -71,32 +101,60 @@ export function reportHtml(input: ReportInput, nonce: string): string {
   const model = sc.model as { family: string; params: Record<string, number>; delay: number };
   const rule = sc.rule as Record<string, unknown>;
   sections.push(
-    `<section><h2>Scenario</h2><dl><dt>Name</dt><dd>${esc(input.scenario.name)}</dd><dt>Model</dt><dd>${esc(model.family)} ${esc(Object.entries(model.params).map(([k, v]) => `${k} = ${v}`).join(", "))}${model.delay ? `, delay ${model.delay}` : ""}</dd>` +
+    `<section><h2>Scenario</h2><dl><dt>Name</dt><dd>${esc(input.scenario.name)}</dd><dt>Model</dt><dd>${esc(model.family)} ${esc(
+      Object.entries(model.params)
+        .map(([k, v]) => `${k} = ${v}`)
+        .join(", "),
+    )}${model.delay ? `, delay ${model.delay}` : ""}</dd>` +
       `<dt>Harvest rule</dt><dd>${esc(ruleText(rule))}</dd><dt>Start</dt><dd>${esc(JSON.stringify(sc.start))} in ${esc(sc.startYear)}</dd><dt>Horizon</dt><dd>${esc(sc.horizon)} years</dd></dl></section>`,
   );
   if (input.fit) sections.push(`<section><h2>Fit</h2>${fitSection(input.fit)}</section>`);
-  sections.push(`<section><h2>Stability of the harvest rule</h2>${stabilitySection(input.stability, input.margin)}</section>`);
+  sections.push(
+    `<section><h2>Stability of the harvest rule</h2>${stabilitySection(input.stability, input.margin)}</section>`,
+  );
   if (input.projection) {
     const p = input.projection.result as StochasticProjection;
     sections.push(
       `<section><h2>Projection</h2><p>${num(p.replicates)} simulated futures (seed ${p.seed}); bands are the 5–95, 10–90 and 25–75 percentiles, the line the median.</p>` +
-        fanChartSvg({ title: "Abundance", yLabel: "stock units", years: p.years, levels: p.levels, series: p.abundance, reference: { value: p.risk.limit, label: "limit" } }) +
-        fanChartSvg({ title: "Catch", yLabel: "stock units per year", years: p.years.slice(0, -1), levels: p.levels, series: p.catch }) +
+        fanChartSvg({
+          title: "Abundance",
+          yLabel: "stock units",
+          years: p.years,
+          levels: p.levels,
+          series: p.abundance,
+          reference: { value: p.risk.limit, label: "limit" },
+        }) +
+        fanChartSvg({
+          title: "Catch",
+          yLabel: "stock units per year",
+          years: p.years.slice(0, -1),
+          levels: p.levels,
+          series: p.catch,
+        }) +
         table(riskTable(p), "Risk and yield") +
         `</section>`,
     );
-    sections.push(`<section class="wide"><h2>Projection by year</h2>${table(projectionTable(p), "Percentiles of abundance and catch")}</section>`);
+    sections.push(
+      `<section class="wide"><h2>Projection by year</h2>${table(projectionTable(p), "Percentiles of abundance and catch")}</section>`,
+    );
   }
   if (input.comparison) {
-    sections.push(`<section class="wide"><h2>Candidate rules compared (same random draws)</h2>${table(comparisonTable(input.comparison.result as Parameters<typeof comparisonTable>[0]), "One row per rule")}</section>`);
+    sections.push(
+      `<section class="wide"><h2>Candidate rules compared (same random draws)</h2>${table(comparisonTable(input.comparison.result as Parameters<typeof comparisonTable>[0]), "One row per rule")}</section>`,
+    );
   }
   const prov = [input.fit, input.projection, input.comparison]
     .filter((r): r is ResultRecord => r !== null)
-    .map((r) => `<tr><td>${esc(r.kind)}</td><td>${esc(r.id)}</td><td>${esc(r.createdAt)}</td><td>${esc(r.programVersion)}</td><td>${esc(r.seed ?? "—")}</td><td><code>${esc((r.dataHash ?? "—").slice(0, 16))}</code></td></tr>`)
+    .map(
+      (r) =>
+        `<tr><td>${esc(r.kind)}</td><td>${esc(r.id)}</td><td>${esc(r.createdAt)}</td><td>${esc(r.programVersion)}</td><td>${esc(r.seed ?? "—")}</td><td><code>${esc((r.dataHash ?? "—").slice(0, 16))}</code></td></tr>`,
+    )
     .join("");
   sections.push(
     `<section><h2>Provenance</h2><p>Scenario ${esc(input.scenario.id ?? "(inline)")}; report generated ${esc(input.generatedAt)} by yieldloop ${esc(input.programVersion)}.</p>` +
-      (prov ? `<table><thead><tr><th>result</th><th>id</th><th>computed</th><th>program</th><th>seed</th><th>data hash</th></tr></thead><tbody>${prov}</tbody></table>` : "") +
+      (prov
+        ? `<table><thead><tr><th>result</th><th>id</th><th>computed</th><th>program</th><th>seed</th><th>data hash</th></tr></thead><tbody>${prov}</tbody></table>`
+        : "") +
       `</section>`,
   );
   return `<!doctype html><html lang="en"><head><meta charset="utf-8"><meta name="viewport" content="width=device-width, initial-scale=1"><title>${esc(input.title)}</title><style nonce="${nonce}">${CSS}</style></head><body><header><h1>${esc(input.title)}</h1><p class="sub">Management report — yieldloop ${esc(input.programVersion)}</p></header><main>${sections.join("")}</main></body></html>`;

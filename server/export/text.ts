@@ -14,5 +14,8 @@ export function formatCell(column: string | undefined, v: unknown): string {
 
 /** Text made safe inside HTML or SVG, in element content and in quoted attributes. */
 export function escapeHtml(s: unknown): string {
-  return String(s ?? "").replace(/[&<>"']/g, (c) => ({ "&": "&amp;", "<": "&lt;", ">": "&gt;", '"': "&quot;", "'": "&#39;" })[c]!);
+  return String(s ?? "").replace(
+    /[&<>"']/g,
+    (c) => ({ "&": "&amp;", "<": "&lt;", ">": "&gt;", '"': "&quot;", "'": "&#39;" })[c]!,
+  );
 }

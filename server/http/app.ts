@@ -19,7 +19,8 @@ export interface AppOptions extends AppContext {
 }
 
 /** The page's Content-Security-Policy: only our own scripts, styles and API. */
-export const PAGE_CSP = "default-src 'self'; script-src 'self'; style-src 'self'; img-src 'self' data: blob:; connect-src 'self'; object-src 'none'; base-uri 'none'; form-action 'self'; frame-ancestors 'none'";
+export const PAGE_CSP =
+  "default-src 'self'; script-src 'self'; style-src 'self'; img-src 'self' data: blob:; connect-src 'self'; object-src 'none'; base-uri 'none'; form-action 'self'; frame-ancestors 'none'";
 
 const securityHeaders: RequestHandler = (_req, res, next) => {
   res.set({
@@ -40,7 +41,12 @@ function bearer(token: string): RequestHandler {
     const got = Buffer.from((req.get("authorization") ?? "").replace(/^Bearer\s+/i, ""));
     if (got.length === expected.length && timingSafeEqual(got, expected)) return next();
     res.set("WWW-Authenticate", 'Bearer realm="yieldloop"');
-    sendProblem(res, { type: PROBLEM_TYPES.unauthorised, title: "Unauthorised", status: 401, detail: "this server needs an API token: send Authorization: Bearer <token>" });
+    sendProblem(res, {
+      type: PROBLEM_TYPES.unauthorised,
+      title: "Unauthorised",
+      status: 401,
+      detail: "this server needs an API token: send Authorization: Bearer <token>",
+    });
   };
 }
 
@@ -60,7 +66,11 @@ export function createApp(opts: AppOptions): express.Express {
     res.json({
       name: "yieldloop",
       version: opts.version,
-      links: Object.fromEntries(["series", "models", "rules", "scenarios", "fits", "analyses", "projections", "comparisons"].map((k) => [k, `/api/v1/${k}`])),
+      links: Object.fromEntries(
+        ["series", "models", "rules", "scenarios", "fits", "analyses", "projections", "comparisons"].map(
+          (k) => [k, `/api/v1/${k}`],
+        ),
+      ),
       openapi: "/api/v1/openapi.json",
     });
   });
@@ -73,29 +83,82 @@ export function createApp(opts: AppOptions): express.Express {
   api.use(specRoutes(opts));
   api.use(exportRoutes(opts));
   api.use(jobRoutes(opts));
-  api.use((req, res) => sendProblem(res, { type: PROBLEM_TYPES.notFound, title: "Not found", status: 404, detail: `no route ${req.method} ${req.baseUrl}${req.path}` }));
+  api.use((req, res) =>
+    sendProblem(res, {
+      type: PROBLEM_TYPES.notFound,
+      title: "Not found",
+      status: 404,
+      detail: `no route ${req.method} ${req.baseUrl}${req.path}`,
+    }),
+  );
   app.use("/api/v1", api);
-  if (opts.staticDir && existsSync(opts.staticDir)) app.use(express.static(opts.staticDir, { index: "index.html", maxAge: "1h" }));
+  if (opts.staticDir && existsSync(opts.staticDir))
+    app.use(express.static(opts.staticDir, { index: "index.html", maxAge: "1h" }));
   else if (opts.staticDir) {
-    app.get("/", (_req, res) => res.type("text/plain; charset=utf-8").send("The web page has not been built yet: run `npm run build` (or start with `npm start`, which builds it). The API is at /api/v1/.\n"));
+    app.get("/", (_req, res) =>
+      res
+        .type("text/plain; charset=utf-8")
+        .send(
+          "The web page has not been built yet: run `npm run build` (or start with `npm start`, which builds it). The API is at /api/v1/.\n",
+        ),
+    );
   }
-  app.use((req, res) => sendProblem(res, { type: PROBLEM_TYPES.notFound, title: "Not found", status: 404, detail: `nothing at ${req.path}` }));
+  app.use((req, res) =>
+    sendProblem(res, {
+      type: PROBLEM_TYPES.notFound,
+      title: "Not found",
+      status: 404,
+      detail: `nothing at ${req.path}`,
+    }),
+  );
   app.use(errors);
   return app;
 }
 
 // Body-parser failures become 400/413/415 problems; anything else is a 500 without details
 // (the stack goes to the server's log, never to the client).
-const errors: ErrorRequestHandler = (err: { type?: string; status?: number; message?: string; stack?: string }, _req, res, _next) => {
+const errors: ErrorRequestHandler = (
+  err: { type?: string; status?: number; message?: string; stack?: string },
+  _req,
+  res,
+  _next,
+) => {
   if (res.headersSent) return res.end();
-  if (err.type === "entity.parse.failed") return sendProblem(res, { type: PROBLEM_TYPES.malformed, title: "Malformed JSON", status: 400, detail: "the request body is not valid JSON" });
-  if (err.type === "entity.too.large") return sendProblem(res, { type: PROBLEM_TYPES.tooLarge, title: "Body too large", status: 413, detail: "the request body is larger than this server accepts" });
+  if (err.type === "entity.parse.failed")
+    return sendProblem(res, {
+      type: PROBLEM_TYPES.malformed,
+      title: "Malformed JSON",
+      status: 400,
+      detail: "the request body is not valid JSON",
+    });
+  if (err.type === "entity.too.large")
+    return sendProblem(res, {
+      type: PROBLEM_TYPES.tooLarge,
+      title: "Body too large",
+      status: 413,
+      detail: "the request body is larger than this server accepts",
+    });
   if (err.type === "encoding.unsupported" || err.type === "charset.unsupported") {
-    return sendProblem(res, { type: PROBLEM_TYPES.mediaType, title: "Unsupported encoding", status: 415, detail: "send the body as UTF-8" });
+    return sendProblem(res, {
+      type: PROBLEM_TYPES.mediaType,
+      title: "Unsupported encoding",
+      status: 415,
+      detail: "send the body as UTF-8",
+    });
   }
   if (typeof err.status === "number" && err.status >= 400 && err.status < 500) {
-    return sendProblem(res, { type: "about:blank", title: "Bad request", status: err.status, detail: "the request could not be read" });
+    return sendProblem(res, {
+      type: "about:blank",
+      title: "Bad request",
+      status: err.status,
+      detail: "the request could not be read",
+    });
   }
   process.stderr.write(`internal error: ${err.stack ?? err.message ?? String(err)}\n`);
-  sendProblem(res, { type: PROBLEM_TYPES.internal, title: "Internal error", status: 500, detail: "the server failed to answer this request; it has been logged" });
+  sendProblem(res, {
+    type: PROBLEM_TYPES.internal,
+    title: "Internal error",
+    status: 500,
+    detail: "the server failed to answer this request; it has been logged",
+  });
 };

@@ -29,7 +29,11 @@ export interface AppContext {
 }
 
 /** Parses a body with a zod schema, answering 422 naming the field on failure. */
-export function parseWith<S extends z.ZodType>(schema: S, body: unknown, res: Response): z.output<S> | undefined {
+export function parseWith<S extends z.ZodType>(
+  schema: S,
+  body: unknown,
+  res: Response,
+): z.output<S> | undefined {
   const r = schema.safeParse(body);
   if (r.success) return r.data;
   sendProblem(res, issueProblem(issueFromZod(r.error, body)));
@@ -56,12 +60,25 @@ export function pageOf(req: Request, res: Response): { limit: number; offset: nu
 /** The body must be a JSON object; the request is answered (400) if it is not. */
 export function jsonObject(req: Request, res: Response): Record<string, unknown> | undefined {
   if (!req.is("application/json")) {
-    sendProblem(res, { type: "urn:yieldloop:problem:unsupported-media-type", title: "Unsupported media type", status: 415, detail: "send the body as application/json" });
+    sendProblem(res, {
+      type: "urn:yieldloop:problem:unsupported-media-type",
+      title: "Unsupported media type",
+      status: 415,
+      detail: "send the body as application/json",
+    });
     return undefined;
   }
   const b = req.body as unknown;
   if (b === null || typeof b !== "object" || Array.isArray(b)) {
-    sendProblem(res, issueProblem({ code: "wrong_type", field: "(body)", expected: "a JSON object", received: Array.isArray(b) ? "array" : b === null ? "null" : typeof b }));
+    sendProblem(
+      res,
+      issueProblem({
+        code: "wrong_type",
+        field: "(body)",
+        expected: "a JSON object",
+        received: Array.isArray(b) ? "array" : b === null ? "null" : typeof b,
+      }),
+    );
     return undefined;
   }
   return b as Record<string, unknown>;

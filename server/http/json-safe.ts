@@ -15,4 +15,3 @@ export function jsonSafe(value: unknown): unknown {
   }
   return out;
 }
-

@@ -32,9 +32,20 @@ export function sendProblem(res: Response, problem: Problem): void {
 
 /** 422 for a core issue, naming the field (with `prefix` before it) or the CSV row and column. */
 export function issueProblem(issue: Issue, prefix = ""): Problem {
-  const named = prefix && "field" in issue ? ({ ...issue, field: issue.field.startsWith(prefix) ? issue.field : `${prefix}.${issue.field}` } as Issue) : issue;
+  const named =
+    prefix && "field" in issue
+      ? ({
+          ...issue,
+          field: issue.field.startsWith(prefix) ? issue.field : `${prefix}.${issue.field}`,
+        } as Issue)
+      : issue;
   const csv = named.code.startsWith("csv_");
-  const field = "field" in named ? named.field : "column" in named ? `row ${"row" in named ? named.row : "?"}, column ${named.column}` : undefined;
+  const field =
+    "field" in named
+      ? named.field
+      : "column" in named
+        ? `row ${"row" in named ? named.row : "?"}, column ${named.column}`
+        : undefined;
   return {
     type: csv ? PROBLEM_TYPES.csv : PROBLEM_TYPES.invalid,
     title: csv ? "The CSV could not be read" : "The request is not valid",
@@ -48,5 +59,10 @@ export function issueProblem(issue: Issue, prefix = ""): Problem {
 }
 
 export function notFound(what: string, id: string): Problem {
-  return { type: PROBLEM_TYPES.notFound, title: "Not found", status: 404, detail: `no ${what} with id "${id}"` };
+  return {
+    type: PROBLEM_TYPES.notFound,
+    title: "Not found",
+    status: 404,
+    detail: `no ${what} with id "${id}"`,
+  };
 }

@@ -8,7 +8,14 @@ import { MARGIN_PARAMETER } from "../../src/sim/rule-comparison.js";
 import type { StochasticProjection } from "../../src/sim/risk-metrics.js";
 import { toCsv } from "../export/csv.js";
 import { reportHtml } from "../export/report.js";
-import { analysisTable, comparisonTable, fitTable, projectionTable, riskTable, type Table } from "../export/tables.js";
+import {
+  analysisTable,
+  comparisonTable,
+  fitTable,
+  projectionTable,
+  riskTable,
+  type Table,
+} from "../export/tables.js";
 import type { ResultKind } from "../store/repository.js";
 import { core, parseWith, type AppContext } from "./context.js";
 import { notFound, sendProblem } from "./problem.js";
@@ -16,7 +23,8 @@ import { parseScenarioSpec } from "./scenario-input.js";
 import { z } from "zod";
 
 function sendTable(res: Response, t: Table, format: "csv" | "json", file: string): void {
-  if (format === "csv") res.type("text/csv; charset=utf-8").attachment(`${file}.csv`).send(toCsv(t.header, t.rows));
+  if (format === "csv")
+    res.type("text/csv; charset=utf-8").attachment(`${file}.csv`).send(toCsv(t.header, t.rows));
   else res.json({ columns: t.header, rows: t.rows });
 }
 
@@ -37,7 +45,8 @@ export function exportRoutes(ctx: AppContext): Router {
   for (const format of ["csv", "json"] as const) {
     r.get(`/projections/:id/table.${format}`, (req, res) => {
       const rec = get("projection", req.params.id, res);
-      if (rec) sendTable(res, projectionTable(rec.result as StochasticProjection), format, `projection-${rec.id}`);
+      if (rec)
+        sendTable(res, projectionTable(rec.result as StochasticProjection), format, `projection-${rec.id}`);
     });
     r.get(`/projections/:id/risk.${format}`, (req, res) => {
       const rec = get("projection", req.params.id, res);
@@ -45,15 +54,23 @@ export function exportRoutes(ctx: AppContext): Router {
     });
     r.get(`/fits/:id/table.${format}`, (req, res) => {
       const rec = get("fit", req.params.id, res);
-      if (rec) sendTable(res, fitTable(rec.result as Parameters<typeof fitTable>[0]), format, `fit-${rec.id}`);
+      if (rec)
+        sendTable(res, fitTable(rec.result as Parameters<typeof fitTable>[0]), format, `fit-${rec.id}`);
     });
     r.get(`/analyses/:id/table.${format}`, (req, res) => {
       const rec = get("analysis", req.params.id, res);
-      if (rec) sendTable(res, analysisTable(rec.result as Record<string, unknown>), format, `analysis-${rec.id}`);
+      if (rec)
+        sendTable(res, analysisTable(rec.result as Record<string, unknown>), format, `analysis-${rec.id}`);
     });
     r.get(`/comparisons/:id/table.${format}`, (req, res) => {
       const rec = get("comparison", req.params.id, res);
-      if (rec) sendTable(res, comparisonTable(rec.result as Parameters<typeof comparisonTable>[0]), format, `comparison-${rec.id}`);
+      if (rec)
+        sendTable(
+          res,
+          comparisonTable(rec.result as Parameters<typeof comparisonTable>[0]),
+          format,
+          `comparison-${rec.id}`,
+        );
     });
   }
 
@@ -65,7 +82,11 @@ export function exportRoutes(ctx: AppContext): Router {
     if (!rec) return sendProblem(res, notFound("scenario", q.scenario));
     const parsed = core(parseScenarioSpec(rec.spec, "scenario"), res);
     if (!parsed) return;
-    const results: Record<string, ReturnType<typeof ctx.repo.getResult>> = { fit: null, projection: null, comparison: null };
+    const results: Record<string, ReturnType<typeof ctx.repo.getResult>> = {
+      fit: null,
+      projection: null,
+      comparison: null,
+    };
     for (const kind of ["fit", "projection", "comparison"] as const) {
       const id = q[kind];
       if (id === undefined) continue;
@@ -91,7 +112,10 @@ export function exportRoutes(ctx: AppContext): Router {
       nonce,
     );
     res
-      .set("Content-Security-Policy", `default-src 'none'; style-src 'nonce-${nonce}'; img-src 'self' data:; base-uri 'none'; form-action 'none'; frame-ancestors 'none'`)
+      .set(
+        "Content-Security-Policy",
+        `default-src 'none'; style-src 'nonce-${nonce}'; img-src 'self' data:; base-uri 'none'; form-action 'none'; frame-ancestors 'none'`,
+      )
       .type("text/html; charset=utf-8")
       .send(html);
   });

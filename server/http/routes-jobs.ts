@@ -16,7 +16,13 @@ const RESULT_KIND: Record<string, "fit" | "analysis" | "projection" | "compariso
 
 function view(job: JobRecord) {
   const kind = RESULT_KIND[job.kind];
-  return { ...job, links: { ...jobLinks(job.id), ...(job.resultId && kind ? { result: resultLinks(kind, job.resultId).self } : {}) } };
+  return {
+    ...job,
+    links: {
+      ...jobLinks(job.id),
+      ...(job.resultId && kind ? { result: resultLinks(kind, job.resultId).self } : {}),
+    },
+  };
 }
 
 export function jobRoutes(ctx: AppContext): Router {
@@ -32,9 +38,16 @@ export function jobRoutes(ctx: AppContext): Router {
   r.get("/jobs/:id/events", (req, res) => {
     const job = ctx.repo.getJob(req.params.id);
     if (!job) return sendProblem(res, notFound("job", req.params.id));
-    res.status(200).set({ "Content-Type": "text/event-stream; charset=utf-8", "Cache-Control": "no-cache", Connection: "keep-alive" });
+    res
+      .status(200)
+      .set({
+        "Content-Type": "text/event-stream; charset=utf-8",
+        "Cache-Control": "no-cache",
+        Connection: "keep-alive",
+      });
     res.flushHeaders();
-    const send = (event: string, data: unknown) => res.write(`event: ${event}\ndata: ${JSON.stringify(data)}\n\n`);
+    const send = (event: string, data: unknown) =>
+      res.write(`event: ${event}\ndata: ${JSON.stringify(data)}\n\n`);
     send("status", view(job));
     const finish = () => {
       const final = ctx.repo.getJob(job.id)!;
@@ -57,7 +70,12 @@ export function jobRoutes(ctx: AppContext): Router {
     const job = ctx.repo.getJob(req.params.id);
     if (!job) return sendProblem(res, notFound("job", req.params.id));
     if (!ctx.jobs.cancel(job.id)) {
-      return sendProblem(res, { type: "urn:yieldloop:problem:conflict", title: "The job has already ended", status: 409, detail: `job "${job.id}" is ${job.status}; only queued or running jobs can be cancelled` });
+      return sendProblem(res, {
+        type: "urn:yieldloop:problem:conflict",
+        title: "The job has already ended",
+        status: 409,
+        detail: `job "${job.id}" is ${job.status}; only queued or running jobs can be cancelled`,
+      });
     }
     res.status(204).end();
   });

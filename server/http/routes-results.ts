@@ -11,14 +11,26 @@ import type { JobOutcome } from "../jobs/job-runner.js";
 import { core, jsonObject, pageOf, parseWith, sendIssue, type AppContext } from "./context.js";
 import { jsonSafe } from "./json-safe.js";
 import { notFound, sendProblem } from "./problem.js";
-import { contentHash, scenarioFrom, scenarioOnly, uncertaintyFrom, type ScenarioInput } from "./scenario-input.js";
+import {
+  contentHash,
+  scenarioFrom,
+  scenarioOnly,
+  uncertaintyFrom,
+  type ScenarioInput,
+} from "./scenario-input.js";
 import { analysisBodySchema, comparisonBodySchema, fitBodySchema, projectionBodySchema } from "./schemas.js";
 
-const PATHS: Record<ResultKind, string> = { fit: "fits", analysis: "analyses", projection: "projections", comparison: "comparisons" };
+const PATHS: Record<ResultKind, string> = {
+  fit: "fits",
+  analysis: "analyses",
+  projection: "projections",
+  comparison: "comparisons",
+};
 
 export function resultLinks(kind: ResultKind, id: string): Record<string, string> {
   const self = `/api/v1/${PATHS[kind]}/${id}`;
-  if (kind === "projection") return { self, table: `${self}/table.csv`, risk: `${self}/risk.csv`, tableJson: `${self}/table.json` };
+  if (kind === "projection")
+    return { self, table: `${self}/table.csv`, risk: `${self}/risk.csv`, tableJson: `${self}/table.json` };
   return { self, table: `${self}/table.csv`, tableJson: `${self}/table.json` };
 }
 
@@ -32,9 +44,17 @@ export function resultRoutes(ctx: AppContext): Router {
     seed: null,
     ...extra,
   });
-  const accepted = (res: Response, kind: string, request: unknown, work: Parameters<AppContext["jobs"]["start"]>[2]) => {
+  const accepted = (
+    res: Response,
+    kind: string,
+    request: unknown,
+    work: Parameters<AppContext["jobs"]["start"]>[2],
+  ) => {
     const job = ctx.jobs.start(kind, request, work);
-    res.status(202).location(`/api/v1/jobs/${job.id}`).json({ job: { ...job, links: jobLinks(job.id) } });
+    res
+      .status(202)
+      .location(`/api/v1/jobs/${job.id}`)
+      .json({ job: { ...job, links: jobLinks(job.id) } });
   };
   const scenario = (body: Record<string, unknown>, res: Response): ScenarioInput | undefined => {
     const s = scenarioFrom(body, ctx.repo);
@@ -54,7 +74,12 @@ export function resultRoutes(ctx: AppContext): Router {
     const u = core(uncertaintyFrom(body, input), res);
     return u ? { body, input, u } : undefined;
   };
-  const outcome = (kind: ResultKind, result: unknown, p: Provenance): JobOutcome => ({ ok: true, kind, result: jsonSafe(result), provenance: p });
+  const outcome = (kind: ResultKind, result: unknown, p: Provenance): JobOutcome => ({
+    ok: true,
+    kind,
+    result: jsonSafe(result),
+    provenance: p,
+  });
 
   r.post("/fits", (req, res) => {
     const body = jsonObject(req, res);
@@ -68,7 +93,11 @@ export function resultRoutes(ctx: AppContext): Router {
     accepted(res, "fit", b, async (signal) => {
       const r2 = await ctx.pool.run({ kind: "fit-compare", csv, options }, signal);
       if (!r2.ok) return r2;
-      return outcome("fit", r2.value, provenance(null, { seriesId: series.id, dataHash: series.contentHash, seed: b.seed ?? 1 }));
+      return outcome(
+        "fit",
+        r2.value,
+        provenance(null, { seriesId: series.id, dataHash: series.contentHash, seed: b.seed ?? 1 }),
+      );
     });
   });
 
@@ -88,22 +117,41 @@ export function resultRoutes(ctx: AppContext): Router {
       if (!fit) return sendProblem(res, notFound("fit", b.fitId));
       const models = fittedModels(fit.result);
       if (!models.ok) return sendIssue(res, models.issue, "fitId");
-      const v = robustVerdict(models.value.map((m) => ({ model: m.model, weight: m.weight })), rule);
+      const v = robustVerdict(
+        models.value.map((m) => ({ model: m.model, weight: m.weight })),
+        rule,
+      );
       if (!v.ok) return sendIssue(res, v.issue);
       const result = { ...v.value, models: models.value.map((m) => m.label) };
-      if (b.store === false) return void res.status(200).json({ kind: "analysis", request, result, stored: false });
-      const rec = ctx.repo.insertResult("analysis", request, jsonSafe(result), provenance(input, { seriesId: fit.seriesId, dataHash: fit.dataHash }));
-      res.status(201).location(`/api/v1/analyses/${rec.id}`).json({ ...rec, links: resultLinks("analysis", rec.id) });
+      if (b.store === false)
+        return void res.status(200).json({ kind: "analysis", request, result, stored: false });
+      const rec = ctx.repo.insertResult(
+        "analysis",
+        request,
+        jsonSafe(result),
+        provenance(input, { seriesId: fit.seriesId, dataHash: fit.dataHash }),
+      );
+      res
+        .status(201)
+        .location(`/api/v1/analyses/${rec.id}`)
+        .json({ ...rec, links: resultLinks("analysis", rec.id) });
       return;
     }
     if (b.kind === "stability" || b.kind === "margin") {
       // Computed on the quick-analysis thread, which answers with the result's JSON text.
-      const done = await ctx.quick.run(b.kind, scenarioOnly(input.spec), b.kind === "margin" ? b.parameter : undefined);
+      const done = await ctx.quick.run(
+        b.kind,
+        scenarioOnly(input.spec),
+        b.kind === "margin" ? b.parameter : undefined,
+      );
       if (!done.ok) return sendIssue(res, done.issue);
       const resultJson = done.json;
       const requestJson = JSON.stringify(request);
       if (b.store === false) {
-        res.status(200).type("json").send(`{"kind":"analysis","request":${requestJson},"result":${resultJson},"stored":false}`);
+        res
+          .status(200)
+          .type("json")
+          .send(`{"kind":"analysis","request":${requestJson},"result":${resultJson},"stored":false}`);
         return;
       }
       // The JSON text is made once, for the row and for the answer.
@@ -111,20 +159,31 @@ export function resultRoutes(ctx: AppContext): Router {
       const { id, createdAt } = await ctx.repo.insertResultText("analysis", requestJson, resultJson, p);
       const head = JSON.stringify({ id, kind: "analysis" });
       const tail = JSON.stringify({ ...p, createdAt, links: resultLinks("analysis", id) });
-      res.status(201).location(`/api/v1/analyses/${id}`).type("json").send(`${head.slice(0, -1)},"request":${requestJson},"result":${resultJson},${tail.slice(1)}`);
+      res
+        .status(201)
+        .location(`/api/v1/analyses/${id}`)
+        .type("json")
+        .send(`${head.slice(0, -1)},"request":${requestJson},"result":${resultJson},${tail.slice(1)}`);
       return;
     }
     const specModel = input.spec.model;
     const specRule = input.spec.rule;
     if (b.kind === "bifurcation") {
       accepted(res, "bifurcation", request, async (signal) => {
-        const d = await ctx.pool.run({ kind: "bifurcation", model: specModel, rule: specRule, axis: b.axis, options: b.options ?? {} }, signal);
+        const d = await ctx.pool.run(
+          { kind: "bifurcation", model: specModel, rule: specRule, axis: b.axis, options: b.options ?? {} },
+          signal,
+        );
         return d.ok ? outcome("analysis", d.value, provenance(input)) : d;
       });
       return;
     }
     accepted(res, "regime-map", request, async (signal, progress) => {
-      const m = await ctx.pool.regimeMap({ model: specModel, rule: specRule, x: b.x, y: b.y, options: b.options ?? {} }, signal, (d, t) => progress(d / t));
+      const m = await ctx.pool.regimeMap(
+        { model: specModel, rule: specRule, x: b.x, y: b.y, options: b.options ?? {} },
+        signal,
+        (d, t) => progress(d / t),
+      );
       if (!m.ok) return m;
       const { ok: _ok, ...map } = m;
       return outcome("analysis", map, provenance(input));
@@ -139,9 +198,17 @@ export function resultRoutes(ctx: AppContext): Router {
     if (!parseWith(projectionBodySchema, rest, res)) return;
     const request = { scenarioId: input.scenarioId, scenario: input.spec, uncertainty: u.raw };
     accepted(res, "projection", request, async (signal, progress) => {
-      const p = await ctx.pool.projection({ scenario: scenarioOnly(input.spec), uncertainty: u.raw }, signal, (d, t) => progress(d / t));
+      const p = await ctx.pool.projection(
+        { scenario: scenarioOnly(input.spec), uncertainty: u.raw },
+        signal,
+        (d, t) => progress(d / t),
+      );
       if (!p.ok) return p;
-      return outcome("projection", p.value, { ...provenance(input), dataHash: contentHash(request), seed: u.value.seed });
+      return outcome("projection", p.value, {
+        ...provenance(input),
+        dataHash: contentHash(request),
+        seed: u.value.seed,
+      });
     });
   });
 
@@ -159,15 +226,24 @@ export function resultRoutes(ctx: AppContext): Router {
       }
     } else if (Array.isArray(body.rules)) {
       rules = body.rules;
-      for (let i = 0; i < rules.length; i++) if (core(parseRule(rules[i], `rules[${i}]`), res) === undefined) return;
+      for (let i = 0; i < rules.length; i++)
+        if (core(parseRule(rules[i], `rules[${i}]`), res) === undefined) return;
     } else return sendIssue(res, { code: "missing_field", field: "rules" });
     const { scenario: _sc, uncertainty: _u, ...rest } = body;
     if (!parseWith(comparisonBodySchema, rest, res)) return;
     const request = { scenarioId: input.scenarioId, scenario: input.spec, uncertainty: u.raw, rules };
     accepted(res, "comparison", request, async (signal, progress) => {
-      const c = await ctx.pool.compareRules({ scenario: scenarioOnly(input.spec), uncertainty: u.raw, rules }, signal, (d, t) => progress(d / t));
+      const c = await ctx.pool.compareRules(
+        { scenario: scenarioOnly(input.spec), uncertainty: u.raw, rules },
+        signal,
+        (d, t) => progress(d / t),
+      );
       if (!c.ok) return c;
-      return outcome("comparison", c.value, { ...provenance(input), dataHash: contentHash(request), seed: u.value.seed });
+      return outcome("comparison", c.value, {
+        ...provenance(input),
+        dataHash: contentHash(request),
+        seed: u.value.seed,
+      });
     });
   });
 
@@ -175,7 +251,11 @@ export function resultRoutes(ctx: AppContext): Router {
     const path = PATHS[kind];
     r.get(`/${path}`, (req, res) => {
       const page = pageOf(req, res);
-      if (page) res.json({ items: ctx.repo.listResults(kind, page).map((x) => ({ ...x, links: resultLinks(kind, x.id) })), ...page });
+      if (page)
+        res.json({
+          items: ctx.repo.listResults(kind, page).map((x) => ({ ...x, links: resultLinks(kind, x.id) })),
+          ...page,
+        });
     });
     r.get(`/${path}/:id`, (req, res) => {
       const rec = ctx.repo.getResult(kind, req.params.id);
@@ -192,18 +272,31 @@ export function resultRoutes(ctx: AppContext): Router {
 
 /** The models of a stored fit result with their Akaike weights, validated by src/. */
 function fittedModels(result: unknown): Result<{ model: Model; weight: number; label: string }[]> {
-  const fits = (result as { fits?: { family: string; delay: number; estimates: Record<string, number>; weight: number }[] }).fits ?? [];
+  const fits =
+    (
+      result as {
+        fits?: { family: string; delay: number; estimates: Record<string, number>; weight: number }[];
+      }
+    ).fits ?? [];
   const out: { model: Model; weight: number; label: string }[] = [];
   for (const f of fits) {
     const family = families[f.family as keyof typeof families];
     if (!family) continue;
     const params: Record<string, number> = {};
-    for (const p of family.params) if (f.estimates[p.name] !== undefined) params[p.name] = f.estimates[p.name]!;
+    for (const p of family.params)
+      if (f.estimates[p.name] !== undefined) params[p.name] = f.estimates[p.name]!;
     const m = parseModel({ family: f.family, params, delay: f.delay });
     // A fit at the edge of a parameter's range may not be a valid model spec; it is left out.
-    if (m.ok) out.push({ model: m.value, weight: f.weight, label: `${f.family}${f.delay ? ` (delay ${f.delay})` : ""}` });
+    if (m.ok)
+      out.push({
+        model: m.value,
+        weight: f.weight,
+        label: `${f.family}${f.delay ? ` (delay ${f.delay})` : ""}`,
+      });
   }
-  return out.length ? ok(out) : fail({ code: "constraint_violated", field: "fitId", constraint: "the fit holds no usable model" });
+  return out.length
+    ? ok(out)
+    : fail({ code: "constraint_violated", field: "fitId", constraint: "the fit holds no usable model" });
 }
 
 export function jobLinks(id: string) {

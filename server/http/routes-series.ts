@@ -19,7 +19,13 @@ export function seriesRoutes(ctx: AppContext): Router {
       const n = parseWith(z.strictObject({ name: nameSchema }), { name: req.query.name ?? "series" }, res);
       if (!n) return;
       if (typeof req.body !== "string" || req.body.length === 0) {
-        sendProblem(res, { type: "urn:yieldloop:problem:csv", title: "The CSV could not be read", status: 422, detail: "the CSV body is empty", field: "(body)" });
+        sendProblem(res, {
+          type: "urn:yieldloop:problem:csv",
+          title: "The CSV could not be read",
+          status: 422,
+          detail: "the CSV body is empty",
+          field: "(body)",
+        });
         return;
       }
       name = n.name;
@@ -42,11 +48,15 @@ export function seriesRoutes(ctx: AppContext): Router {
     const series = parsed.value;
     const hash = createHash("sha256").update(csv).digest("hex");
     const rec = ctx.repo.insertSeries(name, csv, hash, series);
-    res.status(201).location(`/api/v1/series/${rec.id}`).json({ ...rec, links: links(rec.id) });
+    res
+      .status(201)
+      .location(`/api/v1/series/${rec.id}`)
+      .json({ ...rec, links: links(rec.id) });
   });
   r.get("/series", (req, res) => {
     const page = pageOf(req, res);
-    if (page) res.json({ items: ctx.repo.listSeries(page).map((s) => ({ ...s, links: links(s.id) })), ...page });
+    if (page)
+      res.json({ items: ctx.repo.listSeries(page).map((s) => ({ ...s, links: links(s.id) })), ...page });
   });
   r.get("/series/:id", (req, res) => {
     const rec = ctx.repo.getSeries(req.params.id);

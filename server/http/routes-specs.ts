@@ -14,7 +14,12 @@ const envelope = z.strictObject({ name: z.string().min(1).max(200), spec: z.unkn
 const KINDS: { kind: SpecKind; path: string; what: string; parse: (spec: unknown) => Result<unknown> }[] = [
   { kind: "model", path: "models", what: "model", parse: (s) => mapOk(parseModel(s, "spec"), modelJson) },
   { kind: "rule", path: "rules", what: "rule", parse: (s) => mapOk(parseRule(s, "spec"), ruleJson) },
-  { kind: "scenario", path: "scenarios", what: "scenario", parse: (s) => mapOk(parseScenarioSpec(s, "spec"), (v) => v.spec) },
+  {
+    kind: "scenario",
+    path: "scenarios",
+    what: "scenario",
+    parse: (s) => mapOk(parseScenarioSpec(s, "spec"), (v) => v.spec),
+  },
 ];
 
 function mapOk<T, U>(r: Result<T>, f: (v: T) => U): Result<U> {
@@ -30,15 +35,29 @@ export function specRoutes(ctx: AppContext): Router {
       if (!body) return;
       const b = parseWith(envelope, body, res);
       if (!b) return;
-      if (b.spec === undefined) return sendProblem(res, { type: "urn:yieldloop:problem:invalid-input", title: "The request is not valid", status: 422, detail: "spec is required", field: "spec" });
+      if (b.spec === undefined)
+        return sendProblem(res, {
+          type: "urn:yieldloop:problem:invalid-input",
+          title: "The request is not valid",
+          status: 422,
+          detail: "spec is required",
+          field: "spec",
+        });
       const spec = core(parse(b.spec), res);
       if (spec === undefined) return;
       const rec = ctx.repo.insertSpec(kind, b.name, spec);
-      res.status(201).location(`/api/v1/${path}/${rec.id}`).json({ ...rec, links: link(rec.id) });
+      res
+        .status(201)
+        .location(`/api/v1/${path}/${rec.id}`)
+        .json({ ...rec, links: link(rec.id) });
     });
     r.get(`/${path}`, (req, res) => {
       const page = pageOf(req, res);
-      if (page) res.json({ items: ctx.repo.listSpecs(kind, page).map((s) => ({ ...s, links: link(s.id) })), ...page });
+      if (page)
+        res.json({
+          items: ctx.repo.listSpecs(kind, page).map((s) => ({ ...s, links: link(s.id) })),
+          ...page,
+        });
     });
     r.get(`/${path}/:id`, (req, res) => {
       const rec = ctx.repo.getSpec(kind, req.params.id);

@@ -27,33 +27,65 @@ export interface ScenarioInput {
 }
 
 /** Validates a scenario spec (with its optional uncertainty), naming fields under `prefix`. */
-export function parseScenarioSpec(input: unknown, prefix = "scenario"): Result<{ spec: Record<string, unknown>; scenario: Scenario }> {
+export function parseScenarioSpec(
+  input: unknown,
+  prefix = "scenario",
+): Result<{ spec: Record<string, unknown>; scenario: Scenario }> {
   if (input === null || typeof input !== "object" || Array.isArray(input)) {
-    return fail({ code: "wrong_type", field: prefix, expected: "object", received: Array.isArray(input) ? "array" : input === null ? "null" : typeof input });
+    return fail({
+      code: "wrong_type",
+      field: prefix,
+      expected: "object",
+      received: Array.isArray(input) ? "array" : input === null ? "null" : typeof input,
+    });
   }
   const { uncertainty, ...rest } = input as Record<string, unknown>;
   const sc = parseScenario(rest);
-  if (!sc.ok) return fail("field" in sc.issue ? ({ ...sc.issue, field: `${prefix}.${sc.issue.field}` } as typeof sc.issue) : sc.issue);
+  if (!sc.ok)
+    return fail(
+      "field" in sc.issue
+        ? ({ ...sc.issue, field: `${prefix}.${sc.issue.field}` } as typeof sc.issue)
+        : sc.issue,
+    );
   if (uncertainty !== undefined) {
     const u = parseUncertainty(uncertainty, sc.value.model, `${prefix}.uncertainty`);
     if (!u.ok) return u;
   }
   const s = sc.value;
-  const spec: Record<string, unknown> = { model: modelJson(s.model), rule: ruleJson(s.rule), start: [...s.start], horizon: s.horizon, startYear: s.startYear };
+  const spec: Record<string, unknown> = {
+    model: modelJson(s.model),
+    rule: ruleJson(s.rule),
+    start: [...s.start],
+    horizon: s.horizon,
+    startYear: s.startYear,
+  };
   if (uncertainty !== undefined) spec.uncertainty = uncertainty;
   return ok({ spec, scenario: s });
 }
 
 /** The scenario of a request body: `scenarioId` (stored) or `scenario` (inline), exactly one. */
-export function scenarioFrom(body: Record<string, unknown>, repo: Repository): Result<ScenarioInput> | "not-found" {
+export function scenarioFrom(
+  body: Record<string, unknown>,
+  repo: Repository,
+): Result<ScenarioInput> | "not-found" {
   if ((body.scenarioId === undefined) === (body.scenario === undefined)) {
-    return fail({ code: "constraint_violated", field: "scenarioId", constraint: "give either scenarioId (a stored scenario) or scenario (inline), not both or neither" });
+    return fail({
+      code: "constraint_violated",
+      field: "scenarioId",
+      constraint: "give either scenarioId (a stored scenario) or scenario (inline), not both or neither",
+    });
   }
   let raw: unknown = body.scenario;
   let prefix = "scenario";
   let scenarioId: string | null = null;
   if (body.scenarioId !== undefined) {
-    if (typeof body.scenarioId !== "string") return fail({ code: "wrong_type", field: "scenarioId", expected: "string", received: typeof body.scenarioId });
+    if (typeof body.scenarioId !== "string")
+      return fail({
+        code: "wrong_type",
+        field: "scenarioId",
+        expected: "string",
+        received: typeof body.scenarioId,
+      });
     const rec = repo.getSpec("scenario", body.scenarioId);
     if (!rec) return "not-found";
     raw = rec.spec;
@@ -62,11 +94,19 @@ export function scenarioFrom(body: Record<string, unknown>, repo: Repository): R
   }
   const parsed = parseScenarioSpec(raw, prefix);
   if (!parsed.ok) return parsed;
-  return ok({ spec: parsed.value.spec, scenario: parsed.value.scenario, uncertainty: parsed.value.spec.uncertainty, scenarioId });
+  return ok({
+    spec: parsed.value.spec,
+    scenario: parsed.value.scenario,
+    uncertainty: parsed.value.spec.uncertainty,
+    scenarioId,
+  });
 }
 
 /** The uncertainty of a projection: the body's, else the scenario's own. */
-export function uncertaintyFrom(body: Record<string, unknown>, input: ScenarioInput): Result<{ raw: unknown; value: Uncertainty }> {
+export function uncertaintyFrom(
+  body: Record<string, unknown>,
+  input: ScenarioInput,
+): Result<{ raw: unknown; value: Uncertainty }> {
   const raw = body.uncertainty ?? input.uncertainty;
   if (raw === undefined) return fail({ code: "missing_field", field: "uncertainty" });
   const u = parseUncertainty(raw, input.scenario.model, "uncertainty");

@@ -18,14 +18,19 @@ export const scenarioSpecSchema = z
   .strictObject({
     model: modelSpecSchema,
     rule: ruleSpecSchema,
-    start: z.union([z.number().min(0), z.array(z.number().min(0)).min(1).max(101)]).describe("N in the first year, or [N0, N−1, …] for delays and lags"),
+    start: z
+      .union([z.number().min(0), z.array(z.number().min(0)).min(1).max(101)])
+      .describe("N in the first year, or [N0, N−1, …] for delays and lags"),
     horizon: z.int().min(1).max(MAX_HORIZON).describe("years to project"),
     startYear: z.int().min(-100000).max(100000).optional(),
     uncertainty: uncertaintySchema.optional().describe("the scenario's default uncertainty for projections"),
   })
   .describe("model + rule + start + horizon (+ uncertainty)");
 
-export const seriesJsonSchema = z.strictObject({ name, csv: z.string().min(1).describe("the series as RFC 4180 CSV text") });
+export const seriesJsonSchema = z.strictObject({
+  name,
+  csv: z.string().min(1).describe("the series as RFC 4180 CSV text"),
+});
 export const modelBodySchema = z.strictObject({ name, spec: modelSpecSchema });
 export const ruleBodySchema = z.strictObject({ name, spec: ruleSpecSchema });
 export const scenarioBodySchema = z.strictObject({ name, spec: scenarioSpecSchema });
@@ -44,22 +49,53 @@ const scenarioRef = {
   scenarioId: id.optional().describe("a stored scenario"),
   scenario: scenarioSpecSchema.optional().describe("or a scenario given inline"),
 };
-const axis = z.strictObject({ path: z.string(), from: z.number(), to: z.number(), count: z.int().min(2).max(2000) });
+const axis = z.strictObject({
+  path: z.string(),
+  from: z.number(),
+  to: z.number(),
+  count: z.int().min(2).max(2000),
+});
 const longRunOptions = z
-  .strictObject({ burnIn: z.int().min(0).max(100000).optional(), observe: z.int().min(8).max(4096).optional(), start: z.array(z.number().min(0)).min(1).max(101).optional() })
+  .strictObject({
+    burnIn: z.int().min(0).max(100000).optional(),
+    observe: z.int().min(8).max(4096).optional(),
+    start: z.array(z.number().min(0)).min(1).max(101).optional(),
+  })
   .optional();
 
-const preview = z.boolean().optional().describe("false: answer 200 without storing (a preview while a slider moves)");
+const preview = z
+  .boolean()
+  .optional()
+  .describe("false: answer 200 without storing (a preview while a slider moves)");
 
 export const analysisBodySchema = z.discriminatedUnion("kind", [
   z.strictObject({ kind: z.literal("stability"), ...scenarioRef, store: preview }),
-  z.strictObject({ kind: z.literal("margin"), ...scenarioRef, parameter: z.string().describe("e.g. rule.rate, rule.surveyLag, model.params.r"), store: preview }),
+  z.strictObject({
+    kind: z.literal("margin"),
+    ...scenarioRef,
+    parameter: z.string().describe("e.g. rule.rate, rule.surveyLag, model.params.r"),
+    store: preview,
+  }),
   z.strictObject({ kind: z.literal("bifurcation"), ...scenarioRef, axis, options: longRunOptions }),
-  z.strictObject({ kind: z.literal("regime-map"), ...scenarioRef, x: axis, y: axis, options: longRunOptions }),
-  z.strictObject({ kind: z.literal("robust"), ...scenarioRef, fitId: id.describe("a stored fit: its models, weighted by Akaike weight, under the scenario's rule"), store: preview }),
+  z.strictObject({
+    kind: z.literal("regime-map"),
+    ...scenarioRef,
+    x: axis,
+    y: axis,
+    options: longRunOptions,
+  }),
+  z.strictObject({
+    kind: z.literal("robust"),
+    ...scenarioRef,
+    fitId: id.describe("a stored fit: its models, weighted by Akaike weight, under the scenario's rule"),
+    store: preview,
+  }),
 ]);
 
-export const projectionBodySchema = z.strictObject({ ...scenarioRef, uncertainty: uncertaintySchema.optional().describe("defaults to the scenario's own") });
+export const projectionBodySchema = z.strictObject({
+  ...scenarioRef,
+  uncertainty: uncertaintySchema.optional().describe("defaults to the scenario's own"),
+});
 
 export const comparisonBodySchema = z.strictObject({
   ...scenarioRef,
@@ -68,4 +104,7 @@ export const comparisonBodySchema = z.strictObject({
   uncertainty: uncertaintySchema.optional(),
 });
 
-export const pageSchema = z.object({ limit: z.coerce.number().int().min(1).max(1000).default(100), offset: z.coerce.number().int().min(0).default(0) });
+export const pageSchema = z.object({
+  limit: z.coerce.number().int().min(1).max(1000).default(100),
+  offset: z.coerce.number().int().min(0).default(0),
+});

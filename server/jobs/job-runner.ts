@@ -9,7 +9,9 @@ export type JobEvent =
   | { type: "progress"; progress: number }
   | { type: "end"; status: "done" | "failed" | "cancelled"; resultId?: string; error?: unknown };
 
-export type JobOutcome = { ok: true; kind: ResultKind; result: unknown; provenance: Provenance } | { ok: false; issue: Issue };
+export type JobOutcome =
+  | { ok: true; kind: ResultKind; result: unknown; provenance: Provenance }
+  | { ok: false; issue: Issue };
 
 export type JobWork = (signal: AbortSignal, progress: (fraction: number) => void) => Promise<JobOutcome>;
 
@@ -35,7 +37,13 @@ export class JobRunner {
     return job;
   }
 
-  private async run(id: string, request: unknown, work: JobWork, controller: AbortController, emitter: EventEmitter): Promise<void> {
+  private async run(
+    id: string,
+    request: unknown,
+    work: JobWork,
+    controller: AbortController,
+    emitter: EventEmitter,
+  ): Promise<void> {
     // Start on the next turn so the 202 is sent first.
     await new Promise((r) => setImmediate(r));
     if (!this.repo.setJobStatus(id, "running")) return;
@@ -58,13 +66,20 @@ export class JobRunner {
         return;
       }
       const stored = this.repo.finishJob(id, outcome.kind, request, outcome.result, outcome.provenance);
-      if (stored) emitter.emit("event", { type: "end", status: "done", resultId: stored.id } satisfies JobEvent);
+      if (stored)
+        emitter.emit("event", { type: "end", status: "done", resultId: stored.id } satisfies JobEvent);
     } catch (err) {
       if (controller.signal.aborted) return;
       // An internal failure: recorded without the stack, which stays in the server log.
-      process.stderr.write(`job ${id} failed: ${err instanceof Error ? (err.stack ?? err.message) : String(err)}\n`);
+      process.stderr.write(
+        `job ${id} failed: ${err instanceof Error ? (err.stack ?? err.message) : String(err)}\n`,
+      );
       this.repo.failJob(id, { code: "internal", detail: "the analysis failed inside the server" });
-      emitter.emit("event", { type: "end", status: "failed", error: { code: "internal" } } satisfies JobEvent);
+      emitter.emit("event", {
+        type: "end",
+        status: "failed",
+        error: { code: "internal" },
+      } satisfies JobEvent);
     }
   }
 

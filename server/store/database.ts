@@ -27,7 +27,10 @@ export function migrate(db: Db): number {
   db.exec("CREATE TABLE IF NOT EXISTS schema_version (version INTEGER NOT NULL)");
   const row = db.prepare("SELECT MAX(version) AS v FROM schema_version").get() as { v: number | null };
   let version = row.v ?? 0;
-  if (version > MIGRATIONS.length) throw new Error(`the database is at schema version ${version}, newer than this program (${MIGRATIONS.length}); use a newer yieldloop`);
+  if (version > MIGRATIONS.length)
+    throw new Error(
+      `the database is at schema version ${version}, newer than this program (${MIGRATIONS.length}); use a newer yieldloop`,
+    );
   const record = db.prepare("INSERT INTO schema_version (version) VALUES (?)");
   for (; version < MIGRATIONS.length; version++) {
     const sql = MIGRATIONS[version]!;

@@ -70,18 +70,30 @@ export class Repository {
   constructor(readonly db: Db) {
     this.group = new GroupCommit(db);
     this.st = {
-      insertSeries: db.prepare("INSERT INTO series (id, name, csv, content_hash, years, warnings, created_at) VALUES (?, ?, ?, ?, ?, ?, ?)"),
-      insertSeriesRow: db.prepare("INSERT INTO series_rows (series_id, row, year, count, catch, stocking, cv) VALUES (?, ?, ?, ?, ?, ?, ?)"),
-      getSeries: db.prepare("SELECT id, name, content_hash, years, warnings, created_at FROM series WHERE id = ?"),
+      insertSeries: db.prepare(
+        "INSERT INTO series (id, name, csv, content_hash, years, warnings, created_at) VALUES (?, ?, ?, ?, ?, ?, ?)",
+      ),
+      insertSeriesRow: db.prepare(
+        "INSERT INTO series_rows (series_id, row, year, count, catch, stocking, cv) VALUES (?, ?, ?, ?, ?, ?, ?)",
+      ),
+      getSeries: db.prepare(
+        "SELECT id, name, content_hash, years, warnings, created_at FROM series WHERE id = ?",
+      ),
       seriesCsv: db.prepare("SELECT csv FROM series WHERE id = ?"),
-      seriesRows: db.prepare("SELECT year, count, catch, stocking, cv FROM series_rows WHERE series_id = ? ORDER BY row"),
-      listSeries: db.prepare("SELECT id, name, content_hash, years, warnings, created_at FROM series ORDER BY created_at, id LIMIT ? OFFSET ?"),
+      seriesRows: db.prepare(
+        "SELECT year, count, catch, stocking, cv FROM series_rows WHERE series_id = ? ORDER BY row",
+      ),
+      listSeries: db.prepare(
+        "SELECT id, name, content_hash, years, warnings, created_at FROM series ORDER BY created_at, id LIMIT ? OFFSET ?",
+      ),
       seriesByHash: db.prepare("SELECT id FROM series WHERE content_hash = ? AND name = ?"),
       deleteSeries: db.prepare("DELETE FROM series WHERE id = ?"),
       insertSpec: db.prepare("INSERT INTO specs (id, kind, name, spec, created_at) VALUES (?, ?, ?, ?, ?)"),
       getSpec: db.prepare("SELECT id, kind, name, spec, created_at FROM specs WHERE kind = ? AND id = ?"),
       specByName: db.prepare("SELECT id FROM specs WHERE kind = ? AND name = ?"),
-      listSpecs: db.prepare("SELECT id, kind, name, spec, created_at FROM specs WHERE kind = ? ORDER BY created_at, id LIMIT ? OFFSET ?"),
+      listSpecs: db.prepare(
+        "SELECT id, kind, name, spec, created_at FROM specs WHERE kind = ? ORDER BY created_at, id LIMIT ? OFFSET ?",
+      ),
       deleteSpec: db.prepare("DELETE FROM specs WHERE kind = ? AND id = ?"),
       insertResult: db.prepare(
         "INSERT INTO results (id, kind, request, result, scenario_id, series_id, data_hash, program_version, seed, created_at) VALUES (?, ?, ?, ?, ?, ?, ?, ?, ?, ?)",
@@ -91,13 +103,25 @@ export class Repository {
         "SELECT id, kind, request, scenario_id, series_id, data_hash, program_version, seed, created_at FROM results WHERE kind = ? ORDER BY created_at, id LIMIT ? OFFSET ?",
       ),
       deleteResult: db.prepare("DELETE FROM results WHERE kind = ? AND id = ?"),
-      insertJob: db.prepare("INSERT INTO jobs (id, kind, status, progress, request, created_at, updated_at) VALUES (?, ?, 'queued', 0, ?, ?, ?)"),
+      insertJob: db.prepare(
+        "INSERT INTO jobs (id, kind, status, progress, request, created_at, updated_at) VALUES (?, ?, 'queued', 0, ?, ?, ?)",
+      ),
       getJob: db.prepare("SELECT * FROM jobs WHERE id = ?"),
-      jobStatus: db.prepare("UPDATE jobs SET status = ?, updated_at = ? WHERE id = ? AND status IN ('queued', 'running')"),
-      jobProgress: db.prepare("UPDATE jobs SET progress = ?, updated_at = ? WHERE id = ? AND status = 'running'"),
-      jobDone: db.prepare("UPDATE jobs SET status = 'done', progress = 1, result_id = ?, updated_at = ? WHERE id = ? AND status = 'running'"),
-      jobFailed: db.prepare("UPDATE jobs SET status = 'failed', error = ?, updated_at = ? WHERE id = ? AND status IN ('queued', 'running')"),
-      interrupt: db.prepare("UPDATE jobs SET status = 'interrupted', updated_at = ? WHERE status IN ('queued', 'running')"),
+      jobStatus: db.prepare(
+        "UPDATE jobs SET status = ?, updated_at = ? WHERE id = ? AND status IN ('queued', 'running')",
+      ),
+      jobProgress: db.prepare(
+        "UPDATE jobs SET progress = ?, updated_at = ? WHERE id = ? AND status = 'running'",
+      ),
+      jobDone: db.prepare(
+        "UPDATE jobs SET status = 'done', progress = 1, result_id = ?, updated_at = ? WHERE id = ? AND status = 'running'",
+      ),
+      jobFailed: db.prepare(
+        "UPDATE jobs SET status = 'failed', error = ?, updated_at = ? WHERE id = ? AND status IN ('queued', 'running')",
+      ),
+      interrupt: db.prepare(
+        "UPDATE jobs SET status = 'interrupted', updated_at = ? WHERE status IN ('queued', 'running')",
+      ),
     };
   }
 
@@ -106,9 +130,25 @@ export class Repository {
     const id = timeOrderedId();
     const createdAt = now();
     this.db.transaction(() => {
-      this.st.insertSeries.run(id, name, csv, contentHash, series.years.length, JSON.stringify(series.warnings), createdAt);
+      this.st.insertSeries.run(
+        id,
+        name,
+        csv,
+        contentHash,
+        series.years.length,
+        JSON.stringify(series.warnings),
+        createdAt,
+      );
       series.years.forEach((year, i) => {
-        this.st.insertSeriesRow.run(id, i, year, series.count[i], series.catch[i], series.stocking[i], series.cv[i]);
+        this.st.insertSeriesRow.run(
+          id,
+          i,
+          year,
+          series.count[i],
+          series.catch[i],
+          series.stocking[i],
+          series.cv[i],
+        );
       });
     })();
     return { id, name, contentHash, years: series.years.length, warnings: series.warnings, createdAt };
@@ -124,8 +164,16 @@ export class Repository {
     return r ? r.csv : null;
   }
 
-  seriesRows(id: string): { year: number; count: number | null; catch: number; stocking: number; cv: number | null }[] {
-    return this.st.seriesRows.all(id) as { year: number; count: number | null; catch: number; stocking: number; cv: number | null }[];
+  seriesRows(
+    id: string,
+  ): { year: number; count: number | null; catch: number; stocking: number; cv: number | null }[] {
+    return this.st.seriesRows.all(id) as {
+      year: number;
+      count: number | null;
+      catch: number;
+      stocking: number;
+      cv: number | null;
+    }[];
   }
 
   seriesIdByHash(hash: string, name: string): string | null {
@@ -171,7 +219,12 @@ export class Repository {
    * results that requests store in large numbers; resolves with the row's id and time once
    * it has committed.
    */
-  async insertResultText(kind: ResultKind, requestJson: string, resultJson: string, p: Provenance): Promise<{ id: string; createdAt: string }> {
+  async insertResultText(
+    kind: ResultKind,
+    requestJson: string,
+    resultJson: string,
+    p: Provenance,
+  ): Promise<{ id: string; createdAt: string }> {
     const id = timeOrderedId();
     const createdAt = now();
     await this.group.add(() => this.writeResult(id, kind, requestJson, resultJson, p, createdAt));
@@ -185,8 +238,26 @@ export class Repository {
     return { id, kind, request, result, ...provenance, createdAt };
   }
 
-  private writeResult(id: string, kind: ResultKind, requestJson: string, resultJson: string, p: Provenance, createdAt: string): void {
-    this.st.insertResult.run(id, kind, requestJson, resultJson, p.scenarioId, p.seriesId, p.dataHash, p.programVersion, p.seed, createdAt);
+  private writeResult(
+    id: string,
+    kind: ResultKind,
+    requestJson: string,
+    resultJson: string,
+    p: Provenance,
+    createdAt: string,
+  ): void {
+    this.st.insertResult.run(
+      id,
+      kind,
+      requestJson,
+      resultJson,
+      p.scenarioId,
+      p.seriesId,
+      p.dataHash,
+      p.programVersion,
+      p.seed,
+      createdAt,
+    );
   }
 
   getResult(kind: ResultKind, id: string): ResultRecord | null {
@@ -240,7 +311,13 @@ export class Repository {
    * Stores a job's result and marks the job done in one transaction, so a crash leaves
    * either both or neither. Returns null (storing nothing) if the job was cancelled meanwhile.
    */
-  finishJob(jobId: string, kind: ResultKind, request: unknown, result: unknown, provenance: Provenance): ResultRecord | null {
+  finishJob(
+    jobId: string,
+    kind: ResultKind,
+    request: unknown,
+    result: unknown,
+    provenance: Provenance,
+  ): ResultRecord | null {
     const id = timeOrderedId();
     const createdAt = now();
     let stored = false;
@@ -265,11 +342,24 @@ export class Repository {
 }
 
 function seriesRecord(r: Row): SeriesRecord {
-  return { id: String(r.id), name: String(r.name), contentHash: String(r.content_hash), years: Number(r.years), warnings: json(r.warnings) as unknown[], createdAt: String(r.created_at) };
+  return {
+    id: String(r.id),
+    name: String(r.name),
+    contentHash: String(r.content_hash),
+    years: Number(r.years),
+    warnings: json(r.warnings) as unknown[],
+    createdAt: String(r.created_at),
+  };
 }
 
 function specRecord(r: Row): SpecRecord {
-  return { id: String(r.id), kind: r.kind as SpecKind, name: String(r.name), spec: json(r.spec), createdAt: String(r.created_at) };
+  return {
+    id: String(r.id),
+    kind: r.kind as SpecKind,
+    name: String(r.name),
+    spec: json(r.spec),
+    createdAt: String(r.created_at),
+  };
 }
 
 function resultSummary(r: Row): Omit<ResultRecord, "result"> {

@@ -11,31 +11,70 @@ import { parseScenario } from "../../src/sim/scenario.js";
 import { projectionBlocks } from "../../src/sim/stochastic-projection.js";
 import { parseRules, ruleOutcome, type RuleOutcome } from "../../src/sim/rule-comparison.js";
 import { parseUncertainty } from "../../src/sim/uncertainty.js";
-import type { BifurcationTask, FitTask, ProjectionTask, ProjectionTaskResult, RegimeMapTask, TaskResult, ValueTaskResult } from "./tasks.js";
+import type {
+  BifurcationTask,
+  FitTask,
+  ProjectionTask,
+  ProjectionTaskResult,
+  RegimeMapTask,
+  TaskResult,
+  ValueTaskResult,
+} from "./tasks.js";
 
 export interface AnalysisPool {
   readonly threads: number;
-  regimeMap(req: { model: unknown; rule: unknown; x: SweepAxis; y: SweepAxis; options?: Omit<RegimeMapOptions, "columns"> }, signal?: AbortSignal, onProgress?: (done: number, total: number) => void): Promise<PooledRegimeMap>;
+  regimeMap(
+    req: {
+      model: unknown;
+      rule: unknown;
+      x: SweepAxis;
+      y: SweepAxis;
+      options?: Omit<RegimeMapOptions, "columns">;
+    },
+    signal?: AbortSignal,
+    onProgress?: (done: number, total: number) => void,
+  ): Promise<PooledRegimeMap>;
   /**
    * A stochastic projection split by replicate blocks across the workers; the same numbers,
    * bit for bit, as projectStochastic on one thread. `rule` (a rule spec) replaces the
    * scenario's rule. Rejects with an AbortError when the signal fires.
    */
-  projection(req: { scenario: unknown; uncertainty: unknown; rule?: unknown }, signal?: AbortSignal, onProgress?: (done: number, total: number) => void): Promise<{ ok: true; value: StochasticProjection } | { ok: false; issue: Issue }>;
+  projection(
+    req: { scenario: unknown; uncertainty: unknown; rule?: unknown },
+    signal?: AbortSignal,
+    onProgress?: (done: number, total: number) => void,
+  ): Promise<{ ok: true; value: StochasticProjection } | { ok: false; issue: Issue }>;
   /** Candidate rules compared on the same draws (see compareRules in src/sim/rule-comparison.ts). */
-  compareRules(req: { scenario: unknown; uncertainty: unknown; rules: unknown }, signal?: AbortSignal, onProgress?: (done: number, total: number) => void): Promise<{ ok: true; value: RuleOutcome[] } | { ok: false; issue: Issue }>;
+  compareRules(
+    req: { scenario: unknown; uncertainty: unknown; rules: unknown },
+    signal?: AbortSignal,
+    onProgress?: (done: number, total: number) => void,
+  ): Promise<{ ok: true; value: RuleOutcome[] } | { ok: false; issue: Issue }>;
   /** Runs a fit comparison or a bifurcation diagram on a worker. */
   run(task: FitTask | BifurcationTask, signal?: AbortSignal): Promise<ValueTaskResult>;
   close(): Promise<void>;
 }
 
 export type PooledRegimeMap =
-  | { ok: true; x: { path: string; values: number[] }; y: { path: string; values: number[] }; regimes: Uint8Array; periods: Uint8Array; regimeNames: readonly string[]; boundary: { x: number; y: number; from: number; to: number }[] }
+  | {
+      ok: true;
+      x: { path: string; values: number[] };
+      y: { path: string; values: number[] };
+      regimes: Uint8Array;
+      periods: Uint8Array;
+      regimeNames: readonly string[];
+      boundary: { x: number; y: number; from: number; to: number }[];
+    }
   | { ok: false; issue: Issue };
 
 /** Starts a pool of `threads` workers (default: the machine's cores, at least 1). */
 export function createAnalysisPool(threads: number): AnalysisPool {
-  const piscina = new Piscina({ filename: new URL("./worker.mjs", import.meta.url).href, minThreads: threads, maxThreads: threads, idleTimeout: 60_000 });
+  const piscina = new Piscina({
+    filename: new URL("./worker.mjs", import.meta.url).href,
+    minThreads: threads,
+    maxThreads: threads,
+    idleTimeout: 60_000,
+  });
   return {
     threads,
     async regimeMap(req, signal, onProgress) {
@@ -46,7 +85,15 @@ export function createAnalysisPool(threads: number): AnalysisPool {
       const width = Math.max(1, Math.ceil(nx / blocks));
       const tasks: RegimeMapTask[] = [];
       for (let c = 0; c < nx; c += width) {
-        tasks.push({ kind: "regime-map", model: req.model, rule: req.rule, x: req.x, y: req.y, options: req.options ?? {}, columns: [c, Math.min(nx, c + width)] });
+        tasks.push({
+          kind: "regime-map",
+          model: req.model,
+          rule: req.rule,
+          x: req.x,
+          y: req.y,
+          options: req.options ?? {},
+          columns: [c, Math.min(nx, c + width)],
+        });
       }
       let done = 0;
       const results = await Promise.all(
@@ -72,7 +119,15 @@ export function createAnalysisPool(threads: number): AnalysisPool {
         boundary.push(...r.boundary);
       }
       boundary.sort((a, b) => a.x - b.x || a.y - b.y);
-      return { ok: true, x: { path: req.x.path, values: axisValues(req.x) }, y: { path: req.y.path, values: axisValues(req.y) }, regimes, periods, regimeNames: REGIMES, boundary };
+      return {
+        ok: true,
+        x: { path: req.x.path, values: axisValues(req.x) },
+        y: { path: req.y.path, values: axisValues(req.y) },
+        regimes,
+        periods,
+        regimeNames: REGIMES,
+        boundary,
+      };
     },
     async projection(req, signal, onProgress) {
       // One signal is shared by every chunk's task (each adds an abort listener).
@@ -96,7 +151,13 @@ export function createAnalysisPool(threads: number): AnalysisPool {
       for (let c = 0; c < chunks; c++) {
         const from = Math.floor((c * blocks) / chunks);
         const to = Math.floor(((c + 1) * blocks) / chunks);
-        tasks.push({ kind: "projection-blocks", scenario: req.scenario, uncertainty: req.uncertainty, ...(req.rule !== undefined ? { rule: req.rule } : {}), blocks: [from, to] });
+        tasks.push({
+          kind: "projection-blocks",
+          scenario: req.scenario,
+          uncertainty: req.uncertainty,
+          ...(req.rule !== undefined ? { rule: req.rule } : {}),
+          blocks: [from, to],
+        });
       }
       let done = 0;
       const results = await Promise.all(
@@ -122,7 +183,11 @@ export function createAnalysisPool(threads: number): AnalysisPool {
       const specs = req.rules as unknown[];
       const out: RuleOutcome[] = [];
       for (let i = 0; i < specs.length; i++) {
-        const p = await this.projection({ scenario: req.scenario, uncertainty: req.uncertainty, rule: specs[i] }, signal, (d, total) => onProgress?.(i * total + d, specs.length * total));
+        const p = await this.projection(
+          { scenario: req.scenario, uncertainty: req.uncertainty, rule: specs[i] },
+          signal,
+          (d, total) => onProgress?.(i * total + d, specs.length * total),
+        );
         if (!p.ok) return p;
         out.push(ruleOutcome(scenario.value, rules.value[i]!, p.value));
       }

@@ -13,13 +13,18 @@ export interface QuickTask {
   readonly parameter?: string;
 }
 
-export type QuickAnswer = { readonly id: number; readonly ok: true; readonly json: string } | { readonly id: number; readonly ok: false; readonly issue: Issue };
+export type QuickAnswer =
+  | { readonly id: number; readonly ok: true; readonly json: string }
+  | { readonly id: number; readonly ok: false; readonly issue: Issue };
 
 export function runQuickTask(t: QuickTask): QuickAnswer {
   const sc = parseScenario(t.scenario);
   if (!sc.ok) return { id: t.id, ok: false, issue: sc.issue };
-  if (t.kind === "stability") return { id: t.id, ok: true, json: JSON.stringify(analyseStability(sc.value.loop)) };
+  if (t.kind === "stability")
+    return { id: t.id, ok: true, json: JSON.stringify(analyseStability(sc.value.loop)) };
   const m = stabilityMargin(sc.value.model, sc.value.rule, t.parameter ?? "");
   // A margin is plain numbers, strings and arrays, like a stability analysis (a test checks both).
-  return m.ok ? { id: t.id, ok: true, json: JSON.stringify(m.value) } : { id: t.id, ok: false, issue: m.issue };
+  return m.ok
+    ? { id: t.id, ok: true, json: JSON.stringify(m.value) }
+    : { id: t.id, ok: false, issue: m.issue };
 }

@@ -3,7 +3,11 @@
 import { parseModel } from "../../src/models/model-spec.js";
 import { parseRule } from "../../src/policy/rule-spec.js";
 import { regimeMap, type RegimeMapOptions } from "../../src/equilibria/regime-map.js";
-import { bifurcationDiagram, type BifurcationOptions, type SweepAxis } from "../../src/equilibria/bifurcation.js";
+import {
+  bifurcationDiagram,
+  type BifurcationOptions,
+  type SweepAxis,
+} from "../../src/equilibria/bifurcation.js";
 import { compareModels } from "../../src/fit/compare-models.js";
 import { parseSeriesCsv } from "../../src/fit/series.js";
 import type { Issue } from "../../src/issues.js";
@@ -51,10 +55,18 @@ export interface BifurcationTask {
 export type ValueTaskResult = { ok: true; value: unknown } | { ok: false; issue: Issue };
 
 export type TaskResult =
-  | { ok: true; regimes: Uint8Array; periods: Uint8Array; boundary: { x: number; y: number; from: number; to: number }[]; columns: readonly [number, number] }
+  | {
+      ok: true;
+      regimes: Uint8Array;
+      periods: Uint8Array;
+      boundary: { x: number; y: number; from: number; to: number }[];
+      columns: readonly [number, number];
+    }
   | { ok: false; issue: Issue };
 
-export function runTask(task: RegimeMapTask | ProjectionTask | FitTask | BifurcationTask): TaskResult | ProjectionTaskResult | ValueTaskResult {
+export function runTask(
+  task: RegimeMapTask | ProjectionTask | FitTask | BifurcationTask,
+): TaskResult | ProjectionTaskResult | ValueTaskResult {
   switch (task.kind) {
     case "regime-map":
       return runRegimeMap(task);
@@ -86,7 +98,10 @@ function runProjection(task: ProjectionTask): ProjectionTaskResult {
     if (!r.ok) return r;
     rule = r.value;
   }
-  return { ok: true, parts: simulateBlocks(scenario.value, uncertainty.value, task.blocks[0], task.blocks[1], rule) };
+  return {
+    ok: true,
+    parts: simulateBlocks(scenario.value, uncertainty.value, task.blocks[0], task.blocks[1], rule),
+  };
 }
 
 function runRegimeMap(task: RegimeMapTask): TaskResult {
@@ -96,5 +111,11 @@ function runRegimeMap(task: RegimeMapTask): TaskResult {
   if (!rule.ok) return rule;
   const map = regimeMap(model.value, rule.value, task.x, task.y, { ...task.options, columns: task.columns });
   if (!map.ok) return map;
-  return { ok: true, regimes: map.value.regimes, periods: map.value.periods, boundary: map.value.boundary, columns: map.value.columns };
+  return {
+    ok: true,
+    regimes: map.value.regimes,
+    periods: map.value.periods,
+    boundary: map.value.boundary,
+    columns: map.value.columns,
+  };
 }

@@ -10,7 +10,8 @@ export default function (task) {
   const result = runTask(task);
   const buffers = [];
   const collect = (o) => {
-    for (const v of Object.values(o)) if (ArrayBuffer.isView(v) && !buffers.includes(v.buffer)) buffers.push(v.buffer);
+    for (const v of Object.values(o))
+      if (ArrayBuffer.isView(v) && !buffers.includes(v.buffer)) buffers.push(v.buffer);
   };
   if (result.ok) {
     collect(result);

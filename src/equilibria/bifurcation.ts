@@ -41,13 +41,29 @@ export interface BifurcationDiagram {
  * Validates a sweep axis: a known parameter path (`<name>.path`), 2 … 2000 values
  * (`<name>.count`), and both ends inside the parameter's range (`<name>.from`, `<name>.to`).
  */
-export function checkSweepAxis(model: Model, rule: Rule, axis: SweepAxis, name: string): Result<ParameterAxis> {
+export function checkSweepAxis(
+  model: Model,
+  rule: Rule,
+  axis: SweepAxis,
+  name: string,
+): Result<ParameterAxis> {
   const ax = parameterAxis(model, rule, axis.path, `${name}.path`);
   if (!ax.ok) return ax;
   if (!Number.isInteger(axis.count) || axis.count < 2 || axis.count > 2000) {
-    return fail({ code: "param_out_of_range", field: `${name}.count`, value: axis.count, min: 2, max: 2000, minInclusive: true, maxInclusive: true });
+    return fail({
+      code: "param_out_of_range",
+      field: `${name}.count`,
+      value: axis.count,
+      min: 2,
+      max: 2000,
+      minInclusive: true,
+      maxInclusive: true,
+    });
   }
-  for (const [end, v] of [["from", axis.from], ["to", axis.to]] as const) {
+  for (const [end, v] of [
+    ["from", axis.from],
+    ["to", axis.to],
+  ] as const) {
     const check = sweepAt(model, rule, ax.value, v);
     if (!check.ok) return fail({ ...check.issue, field: `${name}.${end}` } as typeof check.issue);
   }
@@ -55,14 +71,20 @@ export function checkSweepAxis(model: Model, rule: Rule, axis: SweepAxis, name: 
 }
 
 /** The model and rule at one value of a sweep (integer parameters rounded to whole years). */
-export function sweepAt(model: Model, rule: Rule, axis: ParameterAxis, value: number): Result<{ model: Model; rule: Rule }> {
+export function sweepAt(
+  model: Model,
+  rule: Rule,
+  axis: ParameterAxis,
+  value: number,
+): Result<{ model: Model; rule: Rule }> {
   return withParameter(model, rule, axis, axis.integer ? Math.round(value) : value);
 }
 
 /** The `count` evenly spaced values of an axis, ends included. */
 export function axisValues(axis: SweepAxis): number[] {
   const out: number[] = [];
-  for (let i = 0; i < axis.count; i++) out.push(axis.count === 1 ? axis.from : axis.from + ((axis.to - axis.from) * i) / (axis.count - 1));
+  for (let i = 0; i < axis.count; i++)
+    out.push(axis.count === 1 ? axis.from : axis.from + ((axis.to - axis.from) * i) / (axis.count - 1));
   return out;
 }
 
@@ -73,7 +95,12 @@ export function axisValues(axis: SweepAxis): number[] {
  * returned as boundaries (located by 40 bisection steps) to draw over the points.
  * Source: May, R. M. (1976). Nature 261: 459–467 (the diagram for the logistic map).
  */
-export function bifurcationDiagram(model: Model, rule: Rule, axis: SweepAxis, options: BifurcationOptions = {}): Result<BifurcationDiagram> {
+export function bifurcationDiagram(
+  model: Model,
+  rule: Rule,
+  axis: SweepAxis,
+  options: BifurcationOptions = {},
+): Result<BifurcationDiagram> {
   const ax = checkSweepAxis(model, rule, axis, "axis");
   if (!ax.ok) return ax;
   const values = axisValues(axis);
@@ -88,14 +115,19 @@ export function bifurcationDiagram(model: Model, rule: Rule, axis: SweepAxis, op
     const varied = sweepAt(model, rule, ax.value, v);
     if (!varied.ok) return { code: null, abundance: null } as const;
     const res = operatingVerdict(closedLoop(varied.value.model, varied.value.rule));
-    return res.code === -2 ? ({ code: null, abundance: null } as const) : { code: res.code as 1 | 0 | -1, abundance: res.abundance };
+    return res.code === -2
+      ? ({ code: null, abundance: null } as const)
+      : { code: res.code as 1 | 0 | -1, abundance: res.abundance };
   };
   for (const v of values) {
     const varied = sweepAt(model, rule, ax.value, v);
     if (!varied.ok) return varied;
     const loop = closedLoop(varied.value.model, varied.value.rule);
     const run = longRun(loop, loop.initialState(start), options);
-    const distinct = run.regime === "cycle" || run.regime === "equilibrium" || run.regime === "extinct" ? run.points : dedupe(run.points, 1e-9 * K);
+    const distinct =
+      run.regime === "cycle" || run.regime === "equilibrium" || run.regime === "extinct"
+        ? run.points
+        : dedupe(run.points, 1e-9 * K);
     points.push(distinct);
     regimes.push(run.regime);
     periods.push(run.period);
@@ -115,7 +147,11 @@ export function bifurcationDiagram(model: Model, rule: Rule, axis: SweepAxis, op
         else b = mid;
       }
     }
-    boundaries.push({ value: ax.value.integer ? b : 0.5 * (a + b), from: stability[i - 1]!, to: stability[i]! });
+    boundaries.push({
+      value: ax.value.integer ? b : 0.5 * (a + b),
+      from: stability[i - 1]!,
+      to: stability[i]!,
+    });
   }
   return ok({ parameter: axis.path, values, points, regimes, periods, equilibrium, stability, boundaries });
 }

@@ -22,9 +22,27 @@ export function burnInLanes(
 ): void {
   const k = cells.length;
   let next = 0;
-  let n0 = 0, t0 = 0, p0 = 1, m0 = 0, c0 = -1, q0 = 0, r0 = 0;
-  let n1 = 0, t1 = 0, p1 = 1, m1 = 0, c1 = -1, q1 = 0, r1 = 0;
-  let n2 = 0, t2 = 0, p2 = 1, m2 = 0, c2 = -1, q2 = 0, r2 = 0;
+  let n0 = 0,
+    t0 = 0,
+    p0 = 1,
+    m0 = 0,
+    c0 = -1,
+    q0 = 0,
+    r0 = 0;
+  let n1 = 0,
+    t1 = 0,
+    p1 = 1,
+    m1 = 0,
+    c1 = -1,
+    q1 = 0,
+    r1 = 0;
+  let n2 = 0,
+    t2 = 0,
+    p2 = 1,
+    m2 = 0,
+    c2 = -1,
+    q2 = 0,
+    r2 = 0;
   let s0 = 0;
   let lp0: ClosedLoop = loops[0]!;
   let b0 = 0;

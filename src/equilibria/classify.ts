@@ -55,21 +55,49 @@ export function classifyEquilibrium(verdict: JuryVerdict, eigs: readonly Complex
   const period = complex ? (2 * Math.PI) / angle : dominant.re < 0 ? 2 : null;
   let kind: StabilityKind;
   if (verdict === "marginal") kind = "marginal";
-  else if (verdict === "stable") kind = !complex && dominant.re >= 0 ? "stable-monotone" : "stable-oscillating";
+  else if (verdict === "stable")
+    kind = !complex && dominant.re >= 0 ? "stable-monotone" : "stable-oscillating";
   else {
     // The kind of instability is named after the eigenvalue furthest outside the circle.
     const outside = eigs.filter((z) => modulus(z) > 1);
     const worst = outside[0] ?? dominant;
     const worstComplex = Math.abs(worst.im) > 1e-12 * Math.max(1, modulus(worst));
-    kind = worstComplex ? "unstable-oscillating" : worst.re > 0 ? "unstable-fold" : "unstable-period-doubling";
+    kind = worstComplex
+      ? "unstable-oscillating"
+      : worst.re > 0
+        ? "unstable-fold"
+        : "unstable-period-doubling";
   }
-  const returnTime = verdict === "stable" && dominantModulus > 0 ? -1 / Math.log(dominantModulus) : verdict === "stable" ? 0 : null;
-  return { kind, label: LABELS[kind], meaning: meaning(kind, period, returnTime, dominant), dominantModulus, dominant, returnTime, period };
+  const returnTime =
+    verdict === "stable" && dominantModulus > 0
+      ? -1 / Math.log(dominantModulus)
+      : verdict === "stable"
+        ? 0
+        : null;
+  return {
+    kind,
+    label: LABELS[kind],
+    meaning: meaning(kind, period, returnTime, dominant),
+    dominantModulus,
+    dominant,
+    returnTime,
+    period,
+  };
 }
 
-function meaning(kind: StabilityKind, period: number | null, returnTime: number | null, dominant: Complex): string {
+function meaning(
+  kind: StabilityKind,
+  period: number | null,
+  returnTime: number | null,
+  dominant: Complex,
+): string {
   const p = period === null ? "" : ` (period about ${period.toFixed(1)} years)`;
-  const r = returnTime === null ? "" : returnTime === 0 ? " at once" : `, a disturbance shrinking by a factor e in about ${returnTime.toFixed(1)} years`;
+  const r =
+    returnTime === null
+      ? ""
+      : returnTime === 0
+        ? " at once"
+        : `, a disturbance shrinking by a factor e in about ${returnTime.toFixed(1)} years`;
   switch (kind) {
     case "stable-monotone":
       return `After a disturbance the stock returns to this level without overshooting${r}.`;
@@ -82,7 +110,12 @@ function meaning(kind: StabilityKind, period: number | null, returnTime: number 
     case "unstable-oscillating":
       return `Swings${p} grow instead of dying out, leading to sustained cycles or a collapse.`;
     case "marginal": {
-      const where = Math.abs(dominant.im) > 1e-12 ? `a complex pair${p}` : dominant.re < 0 ? "a root at −1" : "a root at +1";
+      const where =
+        Math.abs(dominant.im) > 1e-12
+          ? `a complex pair${p}`
+          : dominant.re < 0
+            ? "a root at −1"
+            : "a root at +1";
       return `The rule sits on the edge of stability (${where}): a small change in the rule or in the stock's biology tips it either way.`;
     }
   }

@@ -16,7 +16,10 @@ export interface Complex {
 export function eigenvalues(matrix: readonly (readonly number[])[]): Complex[] {
   if (matrix.length === 0) return [];
   const evd = new EigenvalueDecomposition(new Matrix(matrix.map((r) => [...r])), { assumeSymmetric: false });
-  const out: Complex[] = evd.realEigenvalues.map((re, i) => ({ re: re + 0, im: evd.imaginaryEigenvalues[i]! + 0 }));
+  const out: Complex[] = evd.realEigenvalues.map((re, i) => ({
+    re: re + 0,
+    im: evd.imaginaryEigenvalues[i]! + 0,
+  }));
   return out.sort((a, b) => Math.hypot(b.re, b.im) - Math.hypot(a.re, a.im));
 }
 

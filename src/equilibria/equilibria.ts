@@ -59,7 +59,8 @@ export function findEquilibria(loop: ClosedLoop, options: EquilibriumOptions = {
   for (let i = 0; i < m; i++) {
     const f = fs[i]!;
     if (f === 0) roots.push({ n: grid[i]!, double: false });
-    if (i + 1 < m && f * fs[i + 1]! < 0) roots.push({ n: brentRoot(phi, grid[i]!, grid[i + 1]!), double: false });
+    if (i + 1 < m && f * fs[i + 1]! < 0)
+      roots.push({ n: brentRoot(phi, grid[i]!, grid[i + 1]!), double: false });
     if (i > 0 && i + 1 < m && f !== 0) {
       const prev = fs[i - 1]!;
       const next = fs[i + 1]!;
@@ -119,5 +120,11 @@ function describe(loop: ClosedLoop, n: number, double: boolean): Equilibrium {
   const next = new Float64Array(state.length);
   const rec = { survey: 0, quota: 0, catch: 0, stocking: 0 };
   loop.step(state, next, rec);
-  return { abundance: n, quota: rec.quota, catch: rec.catch, state: Array.from(state), multiplicity: double ? "double" : "simple" };
+  return {
+    abundance: n,
+    quota: rec.quota,
+    catch: rec.catch,
+    state: Array.from(state),
+    multiplicity: double ? "double" : "simple",
+  };
 }

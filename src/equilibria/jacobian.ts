@@ -76,7 +76,10 @@ export function linearise(loop: ClosedLoop, x: ArrayLike<number>): Linearisation
     const m = x[densIndex]!;
     const g = growth.factor(m, params);
     const raw = n > 0 ? n * g : 0;
-    const dP = raw < 0 ? new Array<number>(d).fill(0) : add(scale(unit(d, 0), g), unit(d, densIndex), densityTerm(n, growth.factorSlope(m, params)));
+    const dP =
+      raw < 0
+        ? new Array<number>(d).fill(0)
+        : add(scale(unit(d, 0), g), unit(d, densIndex), densityTerm(n, growth.factorSlope(m, params)));
     const p = raw < 0 ? 0 : raw;
     const takeAll = quota > 0 && quota >= p;
     row0 = takeAll ? new Array<number>(d).fill(0) : add(dP, dQ, -1);

@@ -115,12 +115,17 @@ export function juryTest(coefficients: readonly number[], tolerance = JURY_TOLER
 function normalise(coefficients: readonly number[]): Result<number[]> {
   for (let i = 0; i < coefficients.length; i++) {
     const v = coefficients[i]!;
-    if (!Number.isFinite(v)) return fail({ code: "not_finite", field: `coefficients[${i}]`, received: String(v) });
+    if (!Number.isFinite(v))
+      return fail({ code: "not_finite", field: `coefficients[${i}]`, received: String(v) });
   }
   let start = 0;
   while (start < coefficients.length && coefficients[start] === 0) start++;
   if (start === coefficients.length) {
-    return fail({ code: "constraint_violated", field: "coefficients", constraint: "the zero polynomial has no defined roots" });
+    return fail({
+      code: "constraint_violated",
+      field: "coefficients",
+      constraint: "the zero polynomial has no defined roots",
+    });
   }
   const c = coefficients.slice(start);
   if (c[0]! < 0) for (let i = 0; i < c.length; i++) c[i] = -c[i]! + 0;

@@ -3,7 +3,15 @@ import { burnInLanes } from "./burn-in-lanes.js";
 import { lyapunovExponent } from "./lyapunov.js";
 
 /** Long-run regimes found by iteration. */
-export const REGIMES = ["extinct", "equilibrium", "cycle", "quasi-periodic", "irregular", "transient", "unbounded"] as const;
+export const REGIMES = [
+  "extinct",
+  "equilibrium",
+  "cycle",
+  "quasi-periodic",
+  "irregular",
+  "transient",
+  "unbounded",
+] as const;
 export type Regime = (typeof REGIMES)[number];
 
 export interface LongRunOptions {
@@ -72,7 +80,11 @@ export function longRun(loop: ClosedLoop, start: Float64Array, options: LongRunO
  * each exp()). Each cell drops out as soon as Brent's check finds it periodic; the numbers
  * are identical to longRun's, cell by cell. Loops of higher dimension go through longRun.
  */
-export function longRunBatch(loops: readonly ClosedLoop[], start: Float64Array, options: LongRunOptions = {}): LongRun[] {
+export function longRunBatch(
+  loops: readonly ClosedLoop[],
+  start: Float64Array,
+  options: LongRunOptions = {},
+): LongRun[] {
   const burnIn = options.burnIn ?? 1000;
   const observe = Math.max(8, options.observe ?? 128);
   const tol = options.tolerance ?? 1e-7;
@@ -119,10 +131,25 @@ export function longRunBatch(loops: readonly ClosedLoop[], start: Float64Array, 
   return out;
 }
 
-const UNBOUNDED: LongRun = { regime: "unbounded", period: null, lyapunov: null, towards: null, points: [], min: 0, max: 0, mean: 0 };
+const UNBOUNDED: LongRun = {
+  regime: "unbounded",
+  period: null,
+  lyapunov: null,
+  towards: null,
+  points: [],
+  min: 0,
+  max: 0,
+  mean: 0,
+};
 
 /** Burn-in then observation through step(), with Brent's exact cycle skip. False when unbounded. */
-function vectorOrbit(loop: ClosedLoop, x: Float64Array, burnIn: number, obs: Float64Array, bound: number): boolean {
+function vectorOrbit(
+  loop: ClosedLoop,
+  x: Float64Array,
+  burnIn: number,
+  obs: Float64Array,
+  bound: number,
+): boolean {
   const tortoise = Float64Array.from(x);
   let power = 1;
   let lam = 0;
@@ -160,7 +187,13 @@ function vectorOrbit(loop: ClosedLoop, x: Float64Array, burnIn: number, obs: Flo
  * Classifies an observed window of abundances (steps 2–3 of longRun's method). `after` is the
  * state at the start of the window (it is advanced if a Lyapunov exponent is needed).
  */
-function classifyOrbit(loop: ClosedLoop, obs: Float64Array, after: Float64Array, tol: number, keepPoints = true): LongRun {
+function classifyOrbit(
+  loop: ClosedLoop,
+  obs: Float64Array,
+  after: Float64Array,
+  tol: number,
+  keepPoints = true,
+): LongRun {
   const observe = obs.length;
   const K = loop.model.params.K!;
   let min = Infinity;
@@ -173,7 +206,8 @@ function classifyOrbit(loop: ClosedLoop, obs: Float64Array, after: Float64Array,
     sum += n;
   }
   const mean = sum / observe;
-  if (max <= 1e-9 * K) return orbitResult("extinct", null, null, null, keepPoints ? [obs[observe - 1]!] : [], min, max, mean);
+  if (max <= 1e-9 * K)
+    return orbitResult("extinct", null, null, null, keepPoints ? [obs[observe - 1]!] : [], min, max, mean);
   const eq = tol * Math.max(K, max);
   const maxPeriod = Math.min(MAX_PERIOD, Math.floor(observe / 2));
   for (let k = 1; k <= maxPeriod; k++) {
@@ -186,7 +220,9 @@ function classifyOrbit(loop: ClosedLoop, obs: Float64Array, after: Float64Array,
     }
     if (repeats) {
       const points = keepPoints ? Array.from(obs.subarray(observe - k)) : [];
-      return k === 1 ? orbitResult("equilibrium", null, null, null, keepPoints ? [obs[observe - 1]!] : [], min, max, mean) : orbitResult("cycle", k, null, null, points, min, max, mean);
+      return k === 1
+        ? orbitResult("equilibrium", null, null, null, keepPoints ? [obs[observe - 1]!] : [], min, max, mean)
+        : orbitResult("cycle", k, null, null, points, min, max, mean);
     }
   }
   const lyapunov = lyapunovExponent(loop, after, observe, Math.max(K, max));
@@ -227,9 +263,9 @@ function classifyOrbit(loop: ClosedLoop, obs: Float64Array, after: Float64Array,
       loop.step(after, after);
     }
   }
-  if (spread(late) < 0.8 * early) return orbitResult("transient", null, lyapunov, "equilibrium", points, min, max, mean);
+  if (spread(late) < 0.8 * early)
+    return orbitResult("transient", null, lyapunov, "equilibrium", points, min, max, mean);
   return orbitResult("quasi-periodic", null, lyapunov, null, points, min, max, mean);
-
 }
 
 function spread(v: Float64Array): number {
@@ -242,7 +278,16 @@ function spread(v: Float64Array): number {
   return hi - lo;
 }
 
-function orbitResult(regime: Regime, period: number | null, lyapunov: number | null, towards: LongRun["towards"], points: number[], min: number, max: number, mean: number): LongRun {
+function orbitResult(
+  regime: Regime,
+  period: number | null,
+  lyapunov: number | null,
+  towards: LongRun["towards"],
+  points: number[],
+  min: number,
+  max: number,
+  mean: number,
+): LongRun {
   return { regime, period, lyapunov, towards, points, min, max, mean };
 }
 

@@ -64,7 +64,14 @@ export function stabilityMargin(model: Model, rule: Rule, path: string): Result<
   const base = analyseStability(closedLoop(model, rule), { gridPoints: 1000 });
   const op = base.operating === null ? null : base.equilibria[base.operating]!;
   if (!op) {
-    return ok({ parameter: path, current: ax.current, equilibrium: null, stableNow: false, increase: emptySide(ax.current), decrease: emptySide(ax.current) });
+    return ok({
+      parameter: path,
+      current: ax.current,
+      equilibrium: null,
+      stableNow: false,
+      increase: emptySide(ax.current),
+      decrease: emptySide(ax.current),
+    });
   }
   const stableNow = op.verdict.kind.startsWith("stable");
   // The equilibrium followed by continuation: at a new value, the positive one nearest to
@@ -75,7 +82,11 @@ export function stabilityMargin(model: Model, rule: Rule, path: string): Result<
     const loop = closedLoop(varied.value.model, varied.value.rule);
     let best: Equilibrium | null = null;
     for (const e of findEquilibria(loop, { gridPoints: 400 }).equilibria) {
-      if (e.abundance > 0 && (best === null || Math.abs(e.abundance - near) < Math.abs(best.abundance - near))) best = e;
+      if (
+        e.abundance > 0 &&
+        (best === null || Math.abs(e.abundance - near) < Math.abs(best.abundance - near))
+      )
+        best = e;
     }
     if (!best || Math.abs(best.abundance - near) > 0.3 * (varied.value.model.params.K ?? K)) return null;
     return { loop, equilibrium: best };
@@ -84,7 +95,9 @@ export function stabilityMargin(model: Model, rule: Rule, path: string): Result<
     const t = tracked(value, near);
     if (!t) return null;
     const lin = linearise(t.loop, t.equilibrium.state);
-    const stable = lin.lagCoefficients ? juryVerdict(characteristicPolynomial(lin.lagCoefficients)) === 1 : equilibriumStability(t.loop, t.equilibrium).verdict.kind.startsWith("stable");
+    const stable = lin.lagCoefficients
+      ? juryVerdict(characteristicPolynomial(lin.lagCoefficients)) === 1
+      : equilibriumStability(t.loop, t.equilibrium).verdict.kind.startsWith("stable");
     return { n: t.equilibrium.abundance, stable };
   };
   const kindAt = (value: number, near: number): StabilityKind | "equilibrium-lost" => {
@@ -99,7 +112,12 @@ export function stabilityMargin(model: Model, rule: Rule, path: string): Result<
       for (let v = ax.current + dir; dir > 0 ? v <= end : v >= end; v += dir) {
         const s = status(v, near);
         if (s === null || s.stable !== stableNow) {
-          return { boundary: v, kind: s === null ? "equilibrium-lost" : kindAt(v, near), margin: v - ax.current, searchedTo: end };
+          return {
+            boundary: v,
+            kind: s === null ? "equilibrium-lost" : kindAt(v, near),
+            margin: v - ax.current,
+            searchedTo: end,
+          };
         }
         near = s.n;
       }
@@ -138,12 +156,24 @@ export function stabilityMargin(model: Model, rule: Rule, path: string): Result<
       if (kind === "marginal" && Math.abs(boundary - end) <= 1e-6 * Math.max(1, Math.abs(end - ax.current))) {
         return { boundary: null, kind: null, margin: null, searchedTo: end };
       }
-      return { boundary, kind, margin: ax.current !== 0 ? (boundary - ax.current) / Math.abs(ax.current) : null, searchedTo: end };
+      return {
+        boundary,
+        kind,
+        margin: ax.current !== 0 ? (boundary - ax.current) / Math.abs(ax.current) : null,
+        searchedTo: end,
+      };
     }
     return { boundary: null, kind: null, margin: null, searchedTo: end };
   };
 
-  return ok({ parameter: path, current: ax.current, equilibrium: op.equilibrium.abundance, stableNow, increase: side(1), decrease: side(-1) });
+  return ok({
+    parameter: path,
+    current: ax.current,
+    equilibrium: op.equilibrium.abundance,
+    stableNow,
+    increase: side(1),
+    decrease: side(-1),
+  });
 }
 
 function emptySide(current: number): MarginSide {
@@ -152,8 +182,16 @@ function emptySide(current: number): MarginSide {
 
 /** The far end of the search in one direction, inside the allowed range. */
 function searchEnd(ax: ParameterAxis, dir: 1 | -1, K: number): number {
-  const abundanceUnit = /^(rule\.(quota|escapement|lowerTrigger|upperTrigger|stocking)|model\.params\.(K|A))$/.test(ax.path);
-  const inside = (v: number) => (dir > 0 ? (ax.maxInclusive ? v : Math.min(v, ax.max - 1e-9 * Math.max(1, Math.abs(ax.max)))) : ax.minInclusive ? v : Math.max(v, ax.min + 1e-9 * Math.max(1, Math.abs(ax.min))));
+  const abundanceUnit =
+    /^(rule\.(quota|escapement|lowerTrigger|upperTrigger|stocking)|model\.params\.(K|A))$/.test(ax.path);
+  const inside = (v: number) =>
+    dir > 0
+      ? ax.maxInclusive
+        ? v
+        : Math.min(v, ax.max - 1e-9 * Math.max(1, Math.abs(ax.max)))
+      : ax.minInclusive
+        ? v
+        : Math.max(v, ax.min + 1e-9 * Math.max(1, Math.abs(ax.min)));
   if (ax.integer) return dir > 0 ? ax.max : ax.min;
   if (dir < 0) return inside(ax.min);
   const cap = abundanceUnit ? Math.max(4 * K, 10 * ax.current) : Math.max(10 * ax.current, ax.current + 1);
@@ -169,4 +207,3 @@ function stepsTowards(a: number, b: number, count: number): number[] {
   }
   return out;
 }
-

@@ -16,7 +16,11 @@ import { equilibriumResidual, steadyState } from "./steady-state.js";
  * interval searched. Continuation follows the equilibrium it started on, which is the
  * largest one unless a new, larger equilibrium appears between neighbouring values.
  */
-export function operatingVerdict(loop: ClosedLoop, near?: number, gridPoints = 100): { code: JuryCode; abundance: number } {
+export function operatingVerdict(
+  loop: ClosedLoop,
+  near?: number,
+  gridPoints = 100,
+): { code: JuryCode; abundance: number } {
   let abundance = -1;
   if (near !== undefined && near > 0) {
     const phi = equilibriumResidual(loop);

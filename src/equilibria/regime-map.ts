@@ -35,12 +35,23 @@ export interface RegimeMap {
  * Sources: May, R. M. (1976). Nature 261: 459–467; Jury, E. I. (1964). Theory and
  * Application of the z-Transform Method. Wiley.
  */
-export function regimeMap(model: Model, rule: Rule, xAxis: SweepAxis, yAxis: SweepAxis, options: RegimeMapOptions = {}): Result<RegimeMap> {
+export function regimeMap(
+  model: Model,
+  rule: Rule,
+  xAxis: SweepAxis,
+  yAxis: SweepAxis,
+  options: RegimeMapOptions = {},
+): Result<RegimeMap> {
   const ax = checkSweepAxis(model, rule, xAxis, "x");
   if (!ax.ok) return ax;
   const ay = checkSweepAxis(model, rule, yAxis, "y");
   if (!ay.ok) return ay;
-  if (xAxis.path === yAxis.path) return fail({ code: "constraint_violated", field: "y.path", constraint: "the two axes must be different parameters" });
+  if (xAxis.path === yAxis.path)
+    return fail({
+      code: "constraint_violated",
+      field: "y.path",
+      constraint: "the two axes must be different parameters",
+    });
   const xs = axisValues(xAxis);
   const ys = axisValues(yAxis);
   const nx = xs.length;
@@ -103,5 +114,12 @@ export function regimeMap(model: Model, rule: Rule, xAxis: SweepAxis, yAxis: Swe
       prevY = yv;
     }
   }
-  return ok({ x: { path: xAxis.path, values: xs }, y: { path: yAxis.path, values: ys }, columns: [c0, c1], regimes, periods, boundary });
+  return ok({
+    x: { path: xAxis.path, values: xs },
+    y: { path: yAxis.path, values: ys },
+    columns: [c0, c1],
+    regimes,
+    periods,
+    boundary,
+  });
 }

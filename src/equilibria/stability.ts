@@ -30,22 +30,48 @@ export interface StabilityAnalysis {
  * table, eigenvalues and verdict. See findEquilibria, linearise, juryTest and
  * classifyEquilibrium for the methods and sources.
  */
-export function analyseStability(loop: ClosedLoop, options: EquilibriumOptions & { tolerance?: number } = {}): StabilityAnalysis {
+export function analyseStability(
+  loop: ClosedLoop,
+  options: EquilibriumOptions & { tolerance?: number } = {},
+): StabilityAnalysis {
   const set = findEquilibria(loop, options);
-  const equilibria = set.equilibria.map((e) => equilibriumStability(loop, e, options.tolerance ?? JURY_TOLERANCE));
-  return { equilibria, noPositiveEquilibrium: set.noPositiveEquilibrium, searchedUpTo: set.searchedUpTo, operating: operatingIndex(equilibria) };
+  const equilibria = set.equilibria.map((e) =>
+    equilibriumStability(loop, e, options.tolerance ?? JURY_TOLERANCE),
+  );
+  return {
+    equilibria,
+    noPositiveEquilibrium: set.noPositiveEquilibrium,
+    searchedUpTo: set.searchedUpTo,
+    operating: operatingIndex(equilibria),
+  };
 }
 
 /** The linear stability of one equilibrium of the loop. */
-export function equilibriumStability(loop: ClosedLoop, equilibrium: Equilibrium, tolerance = JURY_TOLERANCE): EquilibriumStability {
+export function equilibriumStability(
+  loop: ClosedLoop,
+  equilibrium: Equilibrium,
+  tolerance = JURY_TOLERANCE,
+): EquilibriumStability {
   const lin = linearise(loop, equilibrium.state);
-  const poly = lin.lagCoefficients ? characteristicPolynomial(lin.lagCoefficients) : polynomialFromRoots(eigenvalues(lin.jacobian));
+  const poly = lin.lagCoefficients
+    ? characteristicPolynomial(lin.lagCoefficients)
+    : polynomialFromRoots(eigenvalues(lin.jacobian));
   const jury = juryTest(poly, tolerance);
   if (!jury.ok) throw new Error("equilibriumStability: a characteristic polynomial is monic and finite");
   // Roots from the companion matrix of the exact polynomial (better conditioned than J's).
   const eigs = polynomialRoots(poly);
-  const verdict = equilibrium.multiplicity === "double" && jury.value.verdict !== "unstable" ? "marginal" : jury.value.verdict;
-  return { equilibrium, jacobian: lin.jacobian, characteristicPolynomial: poly, jury: jury.value, eigenvalues: eigs, verdict: classifyEquilibrium(verdict, eigs) };
+  const verdict =
+    equilibrium.multiplicity === "double" && jury.value.verdict !== "unstable"
+      ? "marginal"
+      : jury.value.verdict;
+  return {
+    equilibrium,
+    jacobian: lin.jacobian,
+    characteristicPolynomial: poly,
+    jury: jury.value,
+    eigenvalues: eigs,
+    verdict: classifyEquilibrium(verdict, eigs),
+  };
 }
 
 function operatingIndex(list: readonly EquilibriumStability[]): number | null {

@@ -5,7 +5,11 @@ import { closedLoop, type ClosedLoop } from "../policy/closed-loop.js";
  * all past abundances N, past spawners N − C(N) (harvest before reproduction), last year's
  * quota H(N). An equilibrium of the scalar equation below is a fixed point x* = G(x*).
  */
-export function steadyState(loop: ClosedLoop, n: number, out = new Float64Array(loop.layout.dimension)): Float64Array {
+export function steadyState(
+  loop: ClosedLoop,
+  n: number,
+  out = new Float64Array(loop.layout.dimension),
+): Float64Array {
   const { nHistory, bStart, bHistory, quotaIndex } = loop.layout;
   const quota = loop.rule.harvest.quota(n);
   const spawners = n - Math.min(quota, n);

@@ -23,7 +23,13 @@ export interface Bootstrap {
  * common practice); Gamma by Marsaglia, G. & Tsang, W. W. (2000). ACM Trans. Math. Softw.
  * 26: 363–372.
  */
-export function parametricBootstrap(series: Series, fit: SeriesFit, optimum: readonly number[], count: number, seed: number): Bootstrap {
+export function parametricBootstrap(
+  series: Series,
+  fit: SeriesFit,
+  optimum: readonly number[],
+  count: number,
+  seed: number,
+): Bootstrap {
   const u = seededUniform(seed);
   const draws: Record<string, number>[] = [];
   let failed = 0;
@@ -35,7 +41,13 @@ export function parametricBootstrap(series: Series, fit: SeriesFit, optimum: rea
       return draw(fit, mu, w[t]!, u);
     });
     const synthetic: Series = { ...series, count: count2 };
-    const p = fitProblem(synthetic, { family: fit.family, delay: fit.delay, method: fit.method, likelihood: fit.likelihood, timing: fit.timing });
+    const p = fitProblem(synthetic, {
+      family: fit.family,
+      delay: fit.delay,
+      method: fit.method,
+      likelihood: fit.likelihood,
+      timing: fit.timing,
+    });
     if (!p.ok) {
       failed++;
       continue;
@@ -65,7 +77,7 @@ function draw(fit: SeriesFit, mu: number, w: number, u: Uniform): number {
       return poisson(mu, u);
     case "negative-binomial": {
       const k = fit.estimates.k ?? 10;
-      return poisson(mu * gamma(k, u) / k, u);
+      return poisson((mu * gamma(k, u)) / k, u);
     }
   }
 }

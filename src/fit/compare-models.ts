@@ -19,7 +19,10 @@ export interface ModelComparison {
  */
 export function compareModels(
   series: Series,
-  options: Omit<FitOptions, "family" | "delay"> & { families?: readonly FamilyId[]; delays?: readonly number[] } = {},
+  options: Omit<FitOptions, "family" | "delay"> & {
+    families?: readonly FamilyId[];
+    delays?: readonly number[];
+  } = {},
 ): Result<ModelComparison> {
   const fams = options.families ?? FAMILY_IDS;
   const delays = options.delays ?? [0, 1];
@@ -33,17 +36,32 @@ export function compareModels(
       const start = undelayed ? undelayed.free : undefined;
       // Profile intervals are left to the chosen model (fitSeries on it), to keep the
       // comparison fast.
-      const r = fitSeries(series, { extraStarts: 3, profiles: [], ...options, family, delay, ...(start ? { start } : {}) });
+      const r = fitSeries(series, {
+        extraStarts: 3,
+        profiles: [],
+        ...options,
+        family,
+        delay,
+        ...(start ? { start } : {}),
+      });
       if (r.ok) {
         fits.push(r.value);
         if (delay === 0) undelayed = r.value;
       } else skipped.push({ family, delay, reason: r.issue.code });
     }
   }
-  if (fits.length === 0) return fail(skipped.length ? { code: "fit_not_converged", iterations: 0 } : { code: "series_too_short", minimum: 1, actual: 0 });
+  if (fits.length === 0)
+    return fail(
+      skipped.length
+        ? { code: "fit_not_converged", iterations: 0 }
+        : { code: "series_too_short", minimum: 1, actual: 0 },
+    );
   fits.sort((a, b) => a.aicc - b.aicc);
   const best = fits[0]!.aicc;
   const raw = fits.map((f) => Math.exp(-(f.aicc - best) / 2));
   const total = raw.reduce((a, b) => a + b, 0);
-  return ok({ fits: fits.map((f, i) => ({ ...f, deltaAicc: f.aicc - best, weight: raw[i]! / total })), skipped });
+  return ok({
+    fits: fits.map((f, i) => ({ ...f, deltaAicc: f.aicc - best, weight: raw[i]! / total })),
+    skipped,
+  });
 }

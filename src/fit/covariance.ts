@@ -9,7 +9,10 @@ import { solveLinear } from "./newton-polish.js";
  * direction: the data cannot pin the parameters down).
  * Source: Pawitan, Y. (2001). In All Likelihood. Oxford University Press, §2.5 and §9.
  */
-export function covarianceFromHessian(f: (x: readonly number[]) => number, at: readonly number[]): { se: (number | null)[]; correlation: (number | null)[][]; positiveDefinite: boolean } {
+export function covarianceFromHessian(
+  f: (x: readonly number[]) => number,
+  at: readonly number[],
+): { se: (number | null)[]; correlation: (number | null)[][]; positiveDefinite: boolean } {
   const n = at.length;
   const H = hessian(f, at);
   const inv: number[][] = [];
@@ -24,9 +27,12 @@ export function covarianceFromHessian(f: (x: readonly number[]) => number, at: r
     }
     inv.push(col);
   }
-  if (!ok) return { se: at.map(() => null), correlation: at.map(() => at.map(() => null)), positiveDefinite: false };
+  if (!ok)
+    return { se: at.map(() => null), correlation: at.map(() => at.map(() => null)), positiveDefinite: false };
   const se = at.map((_, i) => (inv[i]![i]! > 0 ? Math.sqrt(inv[i]![i]!) : null));
   const positiveDefinite = se.every((v) => v !== null);
-  const correlation = at.map((_, i) => at.map((_, j) => (se[i] && se[j] ? Math.max(-1, Math.min(1, inv[j]![i]! / (se[i]! * se[j]!))) : null)));
+  const correlation = at.map((_, i) =>
+    at.map((_, j) => (se[i] && se[j] ? Math.max(-1, Math.min(1, inv[j]![i]! / (se[i]! * se[j]!))) : null)),
+  );
   return { se, correlation, positiveDefinite };
 }

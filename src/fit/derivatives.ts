@@ -9,7 +9,12 @@
  * optimal order) and EPS^(1/4) ≈ 1.2e-4 for the Hessian.
  * Source: Nocedal, J. & Wright, S. J. (2006). Numerical Optimization, 2nd ed. Springer, §8.1.
  */
-export function gradient(f: (x: readonly number[]) => number, x: readonly number[], step = 6e-6, curvature?: readonly (readonly number[])[]): number[] {
+export function gradient(
+  f: (x: readonly number[]) => number,
+  x: readonly number[],
+  step = 6e-6,
+  curvature?: readonly (readonly number[])[],
+): number[] {
   const g: number[] = [];
   const f0 = curvature ? Math.abs(f(x)) + 1 : 0;
   for (let i = 0; i < x.length; i++) {
@@ -27,7 +32,11 @@ export function gradient(f: (x: readonly number[]) => number, x: readonly number
   return g;
 }
 
-export function hessian(f: (x: readonly number[]) => number, x: readonly number[], step = 1.2e-4): number[][] {
+export function hessian(
+  f: (x: readonly number[]) => number,
+  x: readonly number[],
+  step = 1.2e-4,
+): number[][] {
   const base = x.map((v) => step * (v !== 0 ? Math.abs(v) : 1));
   const first = hessianWithSteps(f, x, base, true);
   // Second pass with steps scaled to each direction's curvature, so that f changes by about
@@ -42,7 +51,12 @@ export function hessian(f: (x: readonly number[]) => number, x: readonly number[
   return hessianWithSteps(f, x, tuned);
 }
 
-function hessianWithSteps(f: (x: readonly number[]) => number, x: readonly number[], hs: readonly number[], diagonalOnly = false): number[][] {
+function hessianWithSteps(
+  f: (x: readonly number[]) => number,
+  x: readonly number[],
+  hs: readonly number[],
+  diagonalOnly = false,
+): number[][] {
   const n = x.length;
   const at = (di: number, si: number, dj: number, sj: number) => {
     const p = Array.from(x);
@@ -53,9 +67,12 @@ function hessianWithSteps(f: (x: readonly number[]) => number, x: readonly numbe
   const f0 = f(x);
   const H: number[][] = Array.from({ length: n }, () => new Array<number>(n).fill(0));
   for (let i = 0; i < n; i++) {
-    H[i]![i] = (-at(i, 2, i, 0) + 16 * at(i, 1, i, 0) - 30 * f0 + 16 * at(i, -1, i, 0) - at(i, -2, i, 0)) / (12 * hs[i]! * hs[i]!);
+    H[i]![i] =
+      (-at(i, 2, i, 0) + 16 * at(i, 1, i, 0) - 30 * f0 + 16 * at(i, -1, i, 0) - at(i, -2, i, 0)) /
+      (12 * hs[i]! * hs[i]!);
     for (let j = 0; j < i && !diagonalOnly; j++) {
-      const v = (at(i, 1, j, 1) - at(i, 1, j, -1) - at(i, -1, j, 1) + at(i, -1, j, -1)) / (4 * hs[i]! * hs[j]!);
+      const v =
+        (at(i, 1, j, 1) - at(i, 1, j, -1) - at(i, -1, j, 1) + at(i, -1, j, -1)) / (4 * hs[i]! * hs[j]!);
       H[i]![j] = v;
       H[j]![i] = v;
     }

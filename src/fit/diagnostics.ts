@@ -3,7 +3,12 @@ export interface ResidualDiagnostics {
   /** Lag-1 autocorrelation of the residuals in year order (gaps skipped), or null with < 3. */
   readonly lag1Autocorrelation: number | null;
   /** Wald–Wolfowitz runs test of the residual signs. */
-  readonly runs: { readonly runs: number; readonly expected: number; readonly z: number; readonly pValue: number } | null;
+  readonly runs: {
+    readonly runs: number;
+    readonly expected: number;
+    readonly z: number;
+    readonly pValue: number;
+  } | null;
 }
 
 /**
@@ -53,6 +58,22 @@ export function residualDiagnostics(residuals: readonly (number | null)[]): Resi
 export function normalCdf(z: number): number {
   const x = Math.abs(z) / Math.SQRT2;
   const t = 1 / (1 + 0.5 * x);
-  const y = t * Math.exp(-x * x - 1.26551223 + t * (1.00002368 + t * (0.37409196 + t * (0.09678418 + t * (-0.18628806 + t * (0.27886807 + t * (-1.13520398 + t * (1.48851587 + t * (-0.82215223 + t * 0.17087277)))))))));
+  const y =
+    t *
+    Math.exp(
+      -x * x -
+        1.26551223 +
+        t *
+          (1.00002368 +
+            t *
+              (0.37409196 +
+                t *
+                  (0.09678418 +
+                    t *
+                      (-0.18628806 +
+                        t *
+                          (0.27886807 +
+                            t * (-1.13520398 + t * (1.48851587 + t * (-0.82215223 + t * 0.17087277)))))))),
+    );
   return z >= 0 ? 1 - 0.5 * y : 0.5 * y;
 }

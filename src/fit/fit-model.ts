@@ -44,7 +44,10 @@ export interface FitProblem {
   /** Natural-scale values of a free vector. */
   natural(free: readonly number[]): number[];
   /** Index predictions (q·N, or the one-step prediction) and observations for a natural vector. */
-  evaluate(values: readonly number[], full?: boolean): { predicted: (number | null)[]; q: number; sigma: number | null; nll: number; shortfall: number } | null;
+  evaluate(
+    values: readonly number[],
+    full?: boolean,
+  ): { predicted: (number | null)[]; q: number; sigma: number | null; nll: number; shortfall: number } | null;
   /** Number of observations used and estimated parameters (including concentrated q and σ). */
   readonly observations: number;
   readonly estimated: number;
@@ -69,11 +72,24 @@ const PENALTY = 1e4;
  */
 export function fitProblem(series: Series, options: FitOptions): Result<FitProblem> {
   if (!(FAMILY_IDS as readonly string[]).includes(options.family)) {
-    return fail({ code: "unknown_family", field: "family", value: String(options.family), allowed: FAMILY_IDS });
+    return fail({
+      code: "unknown_family",
+      field: "family",
+      value: String(options.family),
+      allowed: FAMILY_IDS,
+    });
   }
   const delay = options.delay ?? 0;
   if (!Number.isInteger(delay) || delay < 0 || delay > MAX_DELAY) {
-    return fail({ code: "param_out_of_range", field: "delay", value: delay, min: 0, max: MAX_DELAY, minInclusive: true, maxInclusive: true });
+    return fail({
+      code: "param_out_of_range",
+      field: "delay",
+      value: delay,
+      min: 0,
+      max: MAX_DELAY,
+      minInclusive: true,
+      maxInclusive: true,
+    });
   }
   const opts = {
     family: options.family,
@@ -89,13 +105,19 @@ export function fitProblem(series: Series, options: FitOptions): Result<FitProbl
   const observed = y.map((v, i) => (v === null ? -1 : i)).filter((i) => i >= 0);
   if (opts.likelihood === "lognormal" && observed.some((i) => !(y[i]! > 0))) {
     const i = observed.find((k) => !(y[k]! > 0))!;
-    return fail({ code: "constraint_violated", field: `count[${series.years[i]}]`, constraint: "a lognormal likelihood needs positive counts; use poisson or negative-binomial for zeros" });
+    return fail({
+      code: "constraint_violated",
+      field: `count[${series.years[i]}]`,
+      constraint: "a lognormal likelihood needs positive counts; use poisson or negative-binomial for zeros",
+    });
   }
   const maxY = Math.max(...observed.map((i) => y[i]!));
   const start = rickerStart(series);
   const familyNames = growth.params.map((p) => p.name);
   // The Allee threshold is fitted as a fraction of K (its range is then (0, 1)).
-  const bounds: { min: number; max: number }[] = growth.params.map((p) => (p.name === "A" ? { min: 0, max: 1 } : { min: p.min, max: p.max }));
+  const bounds: { min: number; max: number }[] = growth.params.map((p) =>
+    p.name === "A" ? { min: 0, max: 1 } : { min: p.min, max: p.max },
+  );
   const names = [...familyNames];
   const wide = { min: 0, max: 1e12 };
   if (opts.method === "observation") {
@@ -122,7 +144,8 @@ export function fitProblem(series: Series, options: FitOptions): Result<FitProbl
     if (p.name === "A") return 0.1; // as a fraction of K
     return p.typical;
   });
-  if (opts.method === "observation") natural0.push(absolute ? 0.7 * natural0[familyNames.indexOf("K")]! : y[observed[0]!]!);
+  if (opts.method === "observation")
+    natural0.push(absolute ? 0.7 * natural0[familyNames.indexOf("K")]! : y[observed[0]!]!);
   if (nb) {
     if (absolute) natural0.push(1);
     natural0.push(10);
@@ -131,7 +154,8 @@ export function fitProblem(series: Series, options: FitOptions): Result<FitProbl
 
   // Observation pairs for the process-error form.
   const pairs: number[] = [];
-  for (let t = delay; t + 1 < y.length; t++) if (y[t] !== null && y[t + 1] !== null && (delay === 0 || y[t - delay] !== null)) pairs.push(t);
+  for (let t = delay; t + 1 < y.length; t++)
+    if (y[t] !== null && y[t + 1] !== null && (delay === 0 || y[t - delay] !== null)) pairs.push(t);
   const used = opts.method === "observation" ? observed : pairs.map((t) => t + 1);
   const weights = used.map((i) => weightsAll[i]!);
   const obs = used.map((i) => y[i]!);
@@ -145,7 +169,10 @@ export function fitProblem(series: Series, options: FitOptions): Result<FitProbl
   const hasA = familyNames.includes("A");
   const nBuffer = new Array<number>(used.length).fill(0);
   const year: YearWithCatch = { next: 0, base: 0, shortfall: 0 };
-  const projectionBuffers = { abundance: new Array<number>(y.length).fill(0), base: new Array<number>(y.length).fill(0) };
+  const projectionBuffers = {
+    abundance: new Array<number>(y.length).fill(0),
+    base: new Array<number>(y.length).fill(0),
+  };
   const modelOf = (v: readonly number[], fresh: boolean): Model => {
     const params: Record<string, number> = fresh ? {} : scratchParams;
     for (let i = 0; i < familyNames.length; i++) params[familyNames[i]!] = v[i]!;
@@ -157,7 +184,14 @@ export function fitProblem(series: Series, options: FitOptions): Result<FitProbl
     let predicted: (number | null)[];
     let shortfall = 0;
     if (opts.method === "observation") {
-      const run = projectThroughCatches(model, opts.timing, v[familyNames.length]!, series.catch, series.stocking, full ? undefined : projectionBuffers);
+      const run = projectThroughCatches(
+        model,
+        opts.timing,
+        v[familyNames.length]!,
+        series.catch,
+        series.stocking,
+        full ? undefined : projectionBuffers,
+      );
       if (!run) return null;
       predicted = run.abundance;
       shortfall = run.shortfall;
@@ -166,7 +200,12 @@ export function fitProblem(series: Series, options: FitOptions): Result<FitProbl
       for (const t of pairs) {
         // One year of the closed loop from the observed stock, its density term T years back
         // (the observed abundance, or under harvest before reproduction what escaped the catch).
-        const past = delay === 0 ? null : opts.timing === "before" ? Math.max(y[t - delay]! - series.catch[t - delay]!, 0) : y[t - delay]!;
+        const past =
+          delay === 0
+            ? null
+            : opts.timing === "before"
+              ? Math.max(y[t - delay]! - series.catch[t - delay]!, 0)
+              : y[t - delay]!;
         yearWithCatch(model, opts.timing, y[t]!, past, series.catch[t]!, series.stocking[t]!, year);
         if (!Number.isFinite(year.next)) return null;
         shortfall += year.shortfall;
@@ -181,8 +220,17 @@ export function fitProblem(series: Series, options: FitOptions): Result<FitProbl
     const qIndex = familyNames.length + (opts.method === "observation" ? 1 : 0);
     const fixedQ = absolute && opts.method === "observation" ? undefined : 1;
     const lik = nb
-      ? negLogLikelihood("negative-binomial", obs, n, weights, { q: absolute && opts.method === "observation" ? v[qIndex]! : 1, size: v[v.length - 1]! })
-      : negLogLikelihood(opts.likelihood, obs, n, weights, fixedQ === undefined ? { logY: logObs } : { fixedQ, logY: logObs });
+      ? negLogLikelihood("negative-binomial", obs, n, weights, {
+          q: absolute && opts.method === "observation" ? v[qIndex]! : 1,
+          size: v[v.length - 1]!,
+        })
+      : negLogLikelihood(
+          opts.likelihood,
+          obs,
+          n,
+          weights,
+          fixedQ === undefined ? { logY: logObs } : { fixedQ, logY: logObs },
+        );
     const scaled = full ? predicted.map((p) => (p === null ? null : lik.q * p)) : predicted;
     return { predicted: scaled, q: lik.q, sigma: lik.sigma, nll: lik.nll, shortfall };
   };
@@ -193,10 +241,28 @@ export function fitProblem(series: Series, options: FitOptions): Result<FitProbl
     const s = e.shortfall / totalCatch;
     return e.nll + PENALTY * s * s;
   };
-  const concentrated = nb ? 0 : opts.likelihood === "poisson" ? (absolute && opts.method === "observation" ? 1 : 0) : 1 + (absolute && opts.method === "observation" ? 1 : 0);
+  const concentrated = nb
+    ? 0
+    : opts.likelihood === "poisson"
+      ? absolute && opts.method === "observation"
+        ? 1
+        : 0
+      : 1 + (absolute && opts.method === "observation" ? 1 : 0);
   const estimated = names.length + concentrated;
-  if (used.length < estimated + 2) return fail({ code: "series_too_short", minimum: estimated + 2, actual: used.length });
-  return ok({ options: opts, names, bounds, transforms, objective, natural, evaluate, observations: used.length, estimated, start: startFree });
+  if (used.length < estimated + 2)
+    return fail({ code: "series_too_short", minimum: estimated + 2, actual: used.length });
+  return ok({
+    options: opts,
+    names,
+    bounds,
+    transforms,
+    objective,
+    natural,
+    evaluate,
+    observations: used.length,
+    estimated,
+    start: startFree,
+  });
 }
 
 /** Start values from the Ricker regression ln(y[t+1]/y[t]) = r − (r/K)·y[t] (least squares). */
@@ -229,6 +295,17 @@ function rickerStart(series: Series): { r: number; K: number } {
 }
 
 /** Runs the multi-start minimisation of a fit problem (seeded). */
-export function optimiseFit(problem: FitProblem, seed = 1, extraStarts = 8, start = problem.start, quick = false): Optimum {
-  return minimise(problem.objective, start, { random: extraStarts > 0 ? seededUniform(seed) : undefined, extraStarts, spread: 1.5, quick });
+export function optimiseFit(
+  problem: FitProblem,
+  seed = 1,
+  extraStarts = 8,
+  start = problem.start,
+  quick = false,
+): Optimum {
+  return minimise(problem.objective, start, {
+    random: extraStarts > 0 ? seededUniform(seed) : undefined,
+    extraStarts,
+    spread: 1.5,
+    quick,
+  });
 }

@@ -34,7 +34,14 @@ export interface SeriesFit {
   readonly parameters: number;
   readonly observations: number;
   readonly aicc: number;
-  readonly convergence: { readonly converged: boolean; readonly iterations: number; readonly gradientNorm: number; readonly atBound: string[]; readonly agreeingStarts: number; readonly starts: number };
+  readonly convergence: {
+    readonly converged: boolean;
+    readonly iterations: number;
+    readonly gradientNorm: number;
+    readonly atBound: string[];
+    readonly agreeingStarts: number;
+    readonly starts: number;
+  };
   /** Predicted index per year (null where not predicted) and standardised residuals. */
   readonly fitted: (number | null)[];
   readonly residuals: (number | null)[];
@@ -90,13 +97,19 @@ export function fitSeries(series: Series, options: FitOptions): Result<SeriesFit
   const problem = fitProblem(series, options);
   if (!problem.ok) return problem;
   const p = problem.value;
-  const opt = optimiseFit(p, options.seed ?? 1, options.extraStarts ?? 8, options.start ? Array.from(options.start) : p.start);
+  const opt = optimiseFit(
+    p,
+    options.seed ?? 1,
+    options.extraStarts ?? 8,
+    options.start ? Array.from(options.start) : p.start,
+  );
   if (!Number.isFinite(opt.value)) return fail({ code: "fit_not_converged", iterations: opt.iterations });
   const growthRate = p.names.find((n) => n === "r" || n === "R0");
   const wanted = options.profiles ?? [growthRate, "K"].filter((n): n is string => n !== undefined);
   const profiles: ProfileInterval[] = [];
   for (const name of wanted) {
-    if (!p.names.includes(name)) return fail({ code: "unknown_option", field: "profiles", value: name, allowed: p.names });
+    if (!p.names.includes(name))
+      return fail({ code: "unknown_option", field: "profiles", value: name, allowed: p.names });
     const ci = profileInterval(p, opt.x, name);
     if (ci) profiles.push(ci);
   }
@@ -108,7 +121,14 @@ export function summarise(
   series: Series,
   p: FitProblem,
   free: readonly number[],
-  opt: { value: number; iterations: number; gradientNorm: number; converged: boolean; agreeingStarts: number; starts: number },
+  opt: {
+    value: number;
+    iterations: number;
+    gradientNorm: number;
+    converged: boolean;
+    agreeingStarts: number;
+    starts: number;
+  },
   profiles: ProfileInterval[] = [],
 ): SeriesFit {
   const values = p.natural(free);
@@ -132,7 +152,8 @@ export function summarise(
     else {
       const a = t.fromFree(free[i]! - 1.96 * se) * scale;
       const b = t.fromFree(free[i]! + 1.96 * se) * scale;
-      intervals[n] = Number.isFinite(a) && Number.isFinite(b) ? { lower: Math.min(a, b), upper: Math.max(a, b) } : null;
+      intervals[n] =
+        Number.isFinite(a) && Number.isFinite(b) ? { lower: Math.min(a, b), upper: Math.max(a, b) } : null;
     }
   });
   const atBound = p.names.filter((n, i) => p.transforms[i]!.atBound(values[i]!));
@@ -142,7 +163,8 @@ export function summarise(
   const residuals = series.count.map((y, t) => {
     const mu = ev.predicted[t];
     if (y === null || mu === null || mu === undefined) return null;
-    if (p.options.likelihood === "lognormal") return y > 0 && mu > 0 ? (Math.log(y) - Math.log(mu)) / (ev.sigma ?? 1) : null;
+    if (p.options.likelihood === "lognormal")
+      return y > 0 && mu > 0 ? (Math.log(y) - Math.log(mu)) / (ev.sigma ?? 1) : null;
     if (p.options.likelihood === "normal") return (y - mu) / (ev.sigma ?? 1);
     return mu > 0 ? (y - mu) / Math.sqrt(mu) : null;
   });
@@ -155,23 +177,32 @@ export function summarise(
     const info = p.bounds[i];
     if (!ci || !info || name === "A") return;
     const est = estimates[name]!;
-    if (Number.isFinite(info.max) && ci.upper >= info.max * (1 - 1e-9)) problems.push({ code: "unbounded_interval", parameter: name, side: "upper" });
-    else if (info.min === 0 && ci.lower < 1e-6 * est) problems.push({ code: "unbounded_interval", parameter: name, side: "lower" });
+    if (Number.isFinite(info.max) && ci.upper >= info.max * (1 - 1e-9))
+      problems.push({ code: "unbounded_interval", parameter: name, side: "upper" });
+    else if (info.min === 0 && ci.lower < 1e-6 * est)
+      problems.push({ code: "unbounded_interval", parameter: name, side: "lower" });
   });
   for (const ci of profiles) {
-    if (ci.lowerOpen || ci.upperOpen) problems.push({ code: "flat_profile", parameter: ci.parameter, side: ci.lowerOpen && ci.upperOpen ? "both" : ci.lowerOpen ? "lower" : "upper" });
+    if (ci.lowerOpen || ci.upperOpen)
+      problems.push({
+        code: "flat_profile",
+        parameter: ci.parameter,
+        side: ci.lowerOpen && ci.upperOpen ? "both" : ci.lowerOpen ? "lower" : "upper",
+      });
   }
   // An abundance-scale estimate a thousand times the largest abundance the survey implies
   // (max count / q) is the fit running off towards an unbounded direction.
   const largest = Math.max(...series.count.map((c) => c ?? 0)) / ev.q;
   for (const name of ["K", "N0"]) {
     const v = estimates[name];
-    if (v !== undefined && v > 1000 * largest) problems.push({ code: "implausible_scale", parameter: name, value: v, largestAbundance: largest });
+    if (v !== undefined && v > 1000 * largest)
+      problems.push({ code: "implausible_scale", parameter: name, value: v, largestAbundance: largest });
   }
   for (let i = 0; i < p.names.length; i++) {
     for (let j = 0; j < i; j++) {
       const c = cov.correlation[i]![j];
-      if (c !== null && c !== undefined && Math.abs(c) > 0.995) problems.push({ code: "correlated", a: p.names[j]!, b: p.names[i]!, correlation: c });
+      if (c !== null && c !== undefined && Math.abs(c) > 0.995)
+        problems.push({ code: "correlated", a: p.names[j]!, b: p.names[i]!, correlation: c });
     }
   }
   return {
@@ -190,7 +221,14 @@ export function summarise(
     parameters: k,
     observations: n,
     aicc,
-    convergence: { converged: opt.converged, iterations: opt.iterations, gradientNorm: opt.gradientNorm, atBound, agreeingStarts: opt.agreeingStarts, starts: opt.starts },
+    convergence: {
+      converged: opt.converged,
+      iterations: opt.iterations,
+      gradientNorm: opt.gradientNorm,
+      atBound,
+      agreeingStarts: opt.agreeingStarts,
+      starts: opt.starts,
+    },
     fitted: ev.predicted,
     residuals,
     diagnostics: { ...residualDiagnostics(residuals), oneStepRmse: oneStepRmse(series, p, values, ev.q) },
@@ -212,8 +250,17 @@ function oneStepRmse(series: Series, p: FitProblem, values: readonly number[], q
     const a = series.count[t];
     const b = series.count[t + 1];
     const past = T === 0 ? null : series.count[t - T];
-    if (a === null || b === null || !(a! > 0) || !(b! > 0) || past === undefined || (T > 0 && past === null)) continue;
-    yearWithCatch(model, p.options.timing, a! / q, past === null ? null : past / q, series.catch[t]!, series.stocking[t]!, year);
+    if (a === null || b === null || !(a! > 0) || !(b! > 0) || past === undefined || (T > 0 && past === null))
+      continue;
+    yearWithCatch(
+      model,
+      p.options.timing,
+      a! / q,
+      past === null ? null : past / q,
+      series.catch[t]!,
+      series.stocking[t]!,
+      year,
+    );
     if (!(year.next > 0)) continue;
     ss += (Math.log(b!) - Math.log(q * year.next)) ** 2;
     m++;

@@ -53,7 +53,11 @@ export function negLogLikelihood(
       lw += w[i]! === 1 ? 0 : Math.log(w[i]!);
     }
     const s2 = Math.max(ss / m, 1e-300);
-    return { nll: 0.5 * m * (Math.log(2 * Math.PI * s2) + 1) - 0.5 * lw + jac, q: Math.exp(lnq), sigma: Math.sqrt(s2) };
+    return {
+      nll: 0.5 * m * (Math.log(2 * Math.PI * s2) + 1) - 0.5 * lw + jac,
+      q: Math.exp(lnq),
+      sigma: Math.sqrt(s2),
+    };
   }
   if (kind === "normal") {
     let q = options.fixedQ;
@@ -108,7 +112,12 @@ export function negLogLikelihood(
       continue;
     }
     const yi = y[i]!;
-    nll -= logGamma(yi + k) - logGamma(k) - logGamma(yi + 1) + k * Math.log(k / (k + mu)) + yi * Math.log(mu / (k + mu));
+    nll -=
+      logGamma(yi + k) -
+      logGamma(k) -
+      logGamma(yi + 1) +
+      k * Math.log(k / (k + mu)) +
+      yi * Math.log(mu / (k + mu));
   }
   return { nll, q, sigma: null };
 }
@@ -117,7 +126,9 @@ let lnScratch = new Float64Array(64);
 
 /** Observation weights from per-point cv (mean 1; 1 where no cv is given). */
 export function cvWeights(kind: LikelihoodKind, cv: readonly (number | null)[]): number[] {
-  const raw = cv.map((c) => (c === null || !(c > 0) ? null : kind === "lognormal" ? 1 / Math.log(1 + c * c) : 1 / (c * c)));
+  const raw = cv.map((c) =>
+    c === null || !(c > 0) ? null : kind === "lognormal" ? 1 / Math.log(1 + c * c) : 1 / (c * c),
+  );
   const given = raw.filter((v): v is number => v !== null);
   if (given.length === 0) return cv.map(() => 1);
   const mean = given.reduce((a, b) => a + b, 0) / given.length;

@@ -30,12 +30,19 @@ export interface Optimum {
 export function minimise(
   f: (x: readonly number[]) => number,
   start: readonly number[],
-  options: { random?: Uniform; extraStarts?: number; spread?: number; maxIter?: number; quick?: boolean } = {},
+  options: {
+    random?: Uniform;
+    extraStarts?: number;
+    spread?: number;
+    maxIter?: number;
+    quick?: boolean;
+  } = {},
 ): Optimum {
   const extra = options.random ? (options.extraStarts ?? 8) : 0;
   const spread = options.spread ?? 2;
   const starts: number[][] = [Array.from(start)];
-  for (let k = 0; k < extra; k++) starts.push(start.map((v) => v + spread * (2 * options.random!() - 1) * Math.max(1, Math.abs(v))));
+  for (let k = 0; k < extra; k++)
+    starts.push(start.map((v) => v + spread * (2 * options.random!() - 1) * Math.max(1, Math.abs(v))));
   let iterations = 0;
   const results = starts.map((s) => {
     // Loose simplex tolerances: the Newton polish supplies the last digits.
@@ -54,8 +61,11 @@ export function minimise(
   for (const r of results) if (r.value < best.value) best = r;
   const polished = newtonPolish(f, best.x, options.quick ? 3 : 100);
   iterations += polished.iterations;
-  const final = polished.value <= best.value ? polished : { ...best, gradientNorm: Infinity, decrement: Infinity };
-  const agreeing = results.filter((r) => Math.abs(r.value - final.value) <= 1e-6 * (Math.abs(final.value) + 1e-12)).length;
+  const final =
+    polished.value <= best.value ? polished : { ...best, gradientNorm: Infinity, decrement: Infinity };
+  const agreeing = results.filter(
+    (r) => Math.abs(r.value - final.value) <= 1e-6 * (Math.abs(final.value) + 1e-12),
+  ).length;
   return {
     x: final.x,
     value: final.value,

@@ -49,7 +49,9 @@ export function nelderMead(
     const best = vals[0]!;
     const worst = vals[n]!;
     let size = 0;
-    for (let i = 1; i <= n; i++) for (let j = 0; j < n; j++) size = Math.max(size, Math.abs(pts[i]![j]! - pts[0]![j]!) / Math.max(1, Math.abs(pts[0]![j]!)));
+    for (let i = 1; i <= n; i++)
+      for (let j = 0; j < n; j++)
+        size = Math.max(size, Math.abs(pts[i]![j]! - pts[0]![j]!) / Math.max(1, Math.abs(pts[0]![j]!)));
     if (Math.abs(worst - best) <= tol * (Math.abs(best) + tol) && size <= xtol) {
       converged = true;
       break;

@@ -37,7 +37,11 @@ export function solveLinear(A: readonly (readonly number[])[], b: readonly numbe
  * Sources: Levenberg, K. (1944). Q. Appl. Math. 2: 164–168; Marquardt, D. W. (1963). J. Soc.
  * Ind. Appl. Math. 11: 431–441; Nocedal & Wright (2006), ch. 3 and 10.
  */
-export function newtonPolish(f: (x: readonly number[]) => number, start: readonly number[], maxIter = 100): Minimum & { gradientNorm: number; decrement: number } {
+export function newtonPolish(
+  f: (x: readonly number[]) => number,
+  start: readonly number[],
+  maxIter = 100,
+): Minimum & { gradientNorm: number; decrement: number } {
   let x = Array.from(start);
   let fx = f(x);
   let lambda = 1e-6;
@@ -53,7 +57,10 @@ export function newtonPolish(f: (x: readonly number[]) => number, start: readonl
     let improved = false;
     while (lambda <= 1e8) {
       const A = H.map((row, i) => row.map((v, j) => (i === j ? v + lambda * (Math.abs(v) + 1) : v)));
-      const d = solveLinear(A, g.map((v) => -v));
+      const d = solveLinear(
+        A,
+        g.map((v) => -v),
+      );
       if (d) {
         const xn = x.map((v, i) => v + d[i]!);
         const fn = f(xn);

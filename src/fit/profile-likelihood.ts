@@ -28,7 +28,12 @@ export interface ProfileInterval {
  * Source: Venzon, D. J. & Moolgavkar, S. H. (1988). A method for computing profile-likelihood-
  * based confidence intervals. Appl. Statist. 37: 87–94; Hilborn & Mangel (1997), ch. 7.
  */
-export function profileInterval(problem: FitProblem, optimum: readonly number[], parameter: string, level = CHI2_1_95): ProfileInterval | null {
+export function profileInterval(
+  problem: FitProblem,
+  optimum: readonly number[],
+  parameter: string,
+  level = CHI2_1_95,
+): ProfileInterval | null {
   const i = problem.names.indexOf(parameter);
   if (i < 0) return null;
   const best = problem.objective(optimum);
@@ -71,5 +76,12 @@ export function profileInterval(problem: FitProblem, optimum: readonly number[],
   const hi = side(1);
   const est = natural(optimum[i]!);
   // A logistic or log transform is increasing, so the free-coordinate sides map to lower/upper.
-  return { parameter, estimate: est, lower: lo.value, upper: hi.value, lowerOpen: lo.open, upperOpen: hi.open };
+  return {
+    parameter,
+    estimate: est,
+    lower: lo.value,
+    upper: hi.value,
+    lowerOpen: lo.open,
+    upperOpen: hi.open,
+  };
 }

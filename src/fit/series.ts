@@ -61,13 +61,23 @@ export function seriesProblems(text: string): Issue[] {
 function readSeries(text: string, collect: Issue[] | null): Result<Series> {
   let records: string[][];
   try {
-    records = parse(text, { skip_empty_lines: true, trim: true, bom: true, relax_column_count: false }) as string[][];
+    records = parse(text, {
+      skip_empty_lines: true,
+      trim: true,
+      bom: true,
+      relax_column_count: false,
+    }) as string[][];
   } catch (e) {
     const err = e as { lines?: number; message?: string };
-    return fail({ code: "csv_malformed", row: err.lines ?? 1, detail: (err.message ?? "unreadable").split("\n")[0]!.slice(0, 200) });
+    return fail({
+      code: "csv_malformed",
+      row: err.lines ?? 1,
+      detail: (err.message ?? "unreadable").split("\n")[0]!.slice(0, 200),
+    });
   }
   if (records.length === 0) return fail({ code: "csv_missing_column", column: "year", allowed: ["year"] });
-  if (records.length - 1 > MAX_SERIES_ROWS) return fail({ code: "csv_too_large", rows: records.length - 1, maximum: MAX_SERIES_ROWS });
+  if (records.length - 1 > MAX_SERIES_ROWS)
+    return fail({ code: "csv_too_large", rows: records.length - 1, maximum: MAX_SERIES_ROWS });
   const header = records[0]!.map((h) => h.toLowerCase());
   const yearCol = header.indexOf("year");
   if (yearCol < 0) return fail({ code: "csv_missing_column", column: "year", allowed: ["year"] });
@@ -76,9 +86,19 @@ function readSeries(text: string, collect: Issue[] | null): Result<Series> {
   const catchCol = header.indexOf("catch");
   const stockCol = header.indexOf("stocking");
   const cvCol = header.indexOf("cv");
-  const extra = header.map((h, i) => i).filter((i) => ![yearCol, countCol, catchCol, stockCol, cvCol].includes(i));
+  const extra = header
+    .map((h, i) => i)
+    .filter((i) => ![yearCol, countCol, catchCol, stockCol, cvCol].includes(i));
 
-  type Row = { line: number; year: number; count: number | null; catch: number | null; stocking: number | null; cv: number | null; extra: (number | null)[] };
+  type Row = {
+    line: number;
+    year: number;
+    count: number | null;
+    catch: number | null;
+    stocking: number | null;
+    cv: number | null;
+    extra: (number | null)[];
+  };
   const rows: Row[] = [];
   const seen = new Map<number, number>();
   // A problem in a row: stop at the first one (parseSeriesCsv), or note it and skip the row.
@@ -98,11 +118,20 @@ function readSeries(text: string, collect: Issue[] | null): Result<Series> {
       const v = Number(raw);
       const name = records[0]![col]!;
       if (!/^[-+]?(\d+\.?\d*|\.\d+)([eE][-+]?\d+)?$/.test(raw) || !Number.isFinite(v)) {
-        return fail({ code: "csv_cell", row: line, column: name, value: raw, expected: expected === "year" ? "a whole year" : "a number" });
+        return fail({
+          code: "csv_cell",
+          row: line,
+          column: name,
+          value: raw,
+          expected: expected === "year" ? "a whole year" : "a number",
+        });
       }
-      if (expected === "year" && !Number.isInteger(v)) return fail({ code: "csv_cell", row: line, column: name, value: raw, expected: "a whole year" });
-      if (expected === "nonneg" && v < 0) return fail({ code: "csv_cell", row: line, column: name, value: raw, expected: "a number ≥ 0" });
-      if (expected === "positive" && !(v > 0)) return fail({ code: "csv_cell", row: line, column: name, value: raw, expected: "a number > 0" });
+      if (expected === "year" && !Number.isInteger(v))
+        return fail({ code: "csv_cell", row: line, column: name, value: raw, expected: "a whole year" });
+      if (expected === "nonneg" && v < 0)
+        return fail({ code: "csv_cell", row: line, column: name, value: raw, expected: "a number ≥ 0" });
+      if (expected === "positive" && !(v > 0))
+        return fail({ code: "csv_cell", row: line, column: name, value: raw, expected: "a number > 0" });
       return ok(v);
     };
     const year = cell(yearCol, "year");
@@ -111,20 +140,37 @@ function readSeries(text: string, collect: Issue[] | null): Result<Series> {
       continue;
     }
     if (year.value === null) {
-      const issue: Issue = { code: "csv_cell", row: line, column: records[0]![yearCol]!, value: "", expected: "a whole year" };
+      const issue: Issue = {
+        code: "csv_cell",
+        row: line,
+        column: records[0]![yearCol]!,
+        value: "",
+        expected: "a whole year",
+      };
       if (problem(issue)) return fail(issue);
       continue;
     }
     const first = seen.get(year.value);
     if (first !== undefined) {
-      const issue: Issue = { code: "csv_duplicate_year", row: line, column: records[0]![yearCol]!, year: year.value, firstRow: first };
+      const issue: Issue = {
+        code: "csv_duplicate_year",
+        row: line,
+        column: records[0]![yearCol]!,
+        year: year.value,
+        firstRow: first,
+      };
       if (problem(issue)) return fail(issue);
       continue;
     }
     seen.set(year.value, line);
     let rowBad = false;
     const values: (number | null)[] = [];
-    for (const [col, kind] of [[countCol, "nonneg"], [catchCol, "nonneg"], [stockCol, "nonneg"], [cvCol, "positive"]] as const) {
+    for (const [col, kind] of [
+      [countCol, "nonneg"],
+      [catchCol, "nonneg"],
+      [stockCol, "nonneg"],
+      [cvCol, "positive"],
+    ] as const) {
       if (col < 0) {
         values.push(null);
         continue;
@@ -146,27 +192,48 @@ function readSeries(text: string, collect: Issue[] | null): Result<Series> {
       extras.push(v.ok ? v.value : null);
     }
     if (rowBad) continue;
-    rows.push({ line, year: year.value, count: values[0]!, catch: values[1]!, stocking: values[2]!, cv: values[3]!, extra: extras });
+    rows.push({
+      line,
+      year: year.value,
+      count: values[0]!,
+      catch: values[1]!,
+      stocking: values[2]!,
+      cv: values[3]!,
+      extra: extras,
+    });
   }
   if (collected) return fail(collected);
   const warnings: SeriesWarning[] = [];
   const sorted = [...rows].sort((a, b) => a.year - b.year);
   if (sorted.some((r, i) => r !== rows[i])) warnings.push({ code: "years_sorted" });
-  if (!sorted.some((r) => r.count !== null)) return fail({ code: "csv_no_observations", column: records[0]![countCol]! });
+  if (!sorted.some((r) => r.count !== null))
+    return fail({ code: "csv_no_observations", column: records[0]![countCol]! });
   const maxCount = Math.max(...sorted.map((r) => r.count ?? 0));
   for (const r of sorted) {
     if (r.catch !== null && r.catch > 100 * maxCount) {
-      return fail({ code: "csv_implausible_catch", row: r.line, column: records[0]![catchCol]!, value: r.catch, limit: 100 * maxCount } satisfies Issue);
+      return fail({
+        code: "csv_implausible_catch",
+        row: r.line,
+        column: records[0]![catchCol]!,
+        value: r.catch,
+        limit: 100 * maxCount,
+      } satisfies Issue);
     }
   }
   const y0 = sorted[0]!.year;
   const y1 = sorted[sorted.length - 1]!.year;
-  if (y1 - y0 + 1 > MAX_SERIES_ROWS) return fail({ code: "csv_too_large", rows: y1 - y0 + 1, maximum: MAX_SERIES_ROWS });
+  if (y1 - y0 + 1 > MAX_SERIES_ROWS)
+    return fail({ code: "csv_too_large", rows: y1 - y0 + 1, maximum: MAX_SERIES_ROWS });
   const byYear = new Map(sorted.map((r) => [r.year, r]));
   const years: number[] = [];
   const missingYears: number[] = [];
   const unrecordedCatch: number[] = [];
-  const series = { count: [] as (number | null)[], catch: [] as number[], stocking: [] as number[], cv: [] as (number | null)[] };
+  const series = {
+    count: [] as (number | null)[],
+    catch: [] as number[],
+    stocking: [] as number[],
+    cv: [] as (number | null)[],
+  };
   const indices: Record<string, (number | null)[]> = {};
   for (const col of extra) indices[records[0]![col]!] = [];
   for (let y = y0; y <= y1; y++) {

@@ -30,9 +30,21 @@ export const alleeRicker: GrowthFamily<AlleeRickerParams> = {
   params: [
     param("r", "per year", "strength of per-capita growth", { min: 0, max: 10 }, 0.5),
     carryingCapacity,
-    param("A", "same unit as the abundance", "Allee threshold: below it the stock declines", { min: 0, max: MAX_ABUNDANCE }, 200),
+    param(
+      "A",
+      "same unit as the abundance",
+      "Allee threshold: below it the stock declines",
+      { min: 0, max: MAX_ABUNDANCE },
+      200,
+    ),
   ],
-  constraints: [{ field: "params.A", text: "the Allee threshold A must be below the carrying capacity K", holds: (p) => p.A < p.K }],
+  constraints: [
+    {
+      field: "params.A",
+      text: "the Allee threshold A must be below the carrying capacity K",
+      holds: (p) => p.A < p.K,
+    },
+  ],
   factor: (m, { r, K, A }) => Math.exp(r * (1 - m / K) * (m / A - 1)),
   logFactor: (m, { r, K, A }) => r * (1 - m / K) * (m / A - 1),
   factorSlope: (m, { r, K, A }) => {

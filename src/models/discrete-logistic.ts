@@ -24,10 +24,7 @@ export const discreteLogistic: GrowthFamily<DiscreteLogisticParams> = {
   title: "Discrete logistic",
   equation: "N[t+1] = N[t] + r·N[t]·(1 − N[t−T]/K)",
   source: "May, R. M. (1976). Nature 261: 459–467",
-  params: [
-    param("r", "per year", "intrinsic rate of increase", { min: 0, max: 3 }, 1),
-    carryingCapacity,
-  ],
+  params: [param("r", "per year", "intrinsic rate of increase", { min: 0, max: 3 }, 1), carryingCapacity],
   constraints: [],
   factor: (m, { r, K }) => 1 + r * (1 - m / K),
   factorSlope: (_m, { r, K }) => -r / K,

@@ -26,7 +26,13 @@ export const hassell: GrowthFamily<HassellParams> = {
   params: [
     param("R0", "dimensionless", "maximum per-capita reproduction (at low density)", { min: 1, max: 1e4 }, 3),
     carryingCapacity,
-    param("beta", "dimensionless", "competition exponent β (1 = Beverton–Holt, large = scramble)", { min: 0, max: 20 }, 2),
+    param(
+      "beta",
+      "dimensionless",
+      "competition exponent β (1 = Beverton–Holt, large = scramble)",
+      { min: 0, max: 20 },
+      2,
+    ),
   ],
   constraints: [],
   factor: (m, { R0, K, beta }) => {

@@ -53,21 +53,34 @@ function cachedSchema(id: FamilyId): ReturnType<typeof familySchema> {
  */
 export function parseModel(input: unknown, prefix = "model"): Result<Model> {
   if (input === null || typeof input !== "object" || Array.isArray(input)) {
-    return fail({ code: "wrong_type", field: prefix, expected: "object", received: input === null ? "null" : Array.isArray(input) ? "array" : typeof input });
+    return fail({
+      code: "wrong_type",
+      field: prefix,
+      expected: "object",
+      received: input === null ? "null" : Array.isArray(input) ? "array" : typeof input,
+    });
   }
   const family = (input as { family?: unknown }).family;
   if (family === undefined) return fail({ code: "missing_field", field: `${prefix}.family` });
   if (typeof family !== "string" || !(FAMILY_IDS as readonly string[]).includes(family)) {
-    return fail({ code: "unknown_family", field: `${prefix}.family`, value: String(family), allowed: FAMILY_IDS });
+    return fail({
+      code: "unknown_family",
+      field: `${prefix}.family`,
+      value: String(family),
+      allowed: FAMILY_IDS,
+    });
   }
   const id = family as FamilyId;
   const growth = families[id];
   const parsed = cachedSchema(id).safeParse(input);
   if (!parsed.success) {
     return fail(
-      issueFromZod(parsed.error, input, (path) =>
-        path[0] === "params" ? growth.params.find((p) => p.name === path[1]) : undefined,
-      prefix),
+      issueFromZod(
+        parsed.error,
+        input,
+        (path) => (path[0] === "params" ? growth.params.find((p) => p.name === path[1]) : undefined),
+        prefix,
+      ),
     );
   }
   const params = parsed.data.params as Params;
@@ -78,7 +91,8 @@ export function parseModel(input: unknown, prefix = "model"): Result<Model> {
 
 function checkConstraints(growth: GrowthFamily<Params>, p: Params, prefix: string): Issue | undefined {
   for (const c of growth.constraints) {
-    if (!c.holds(p)) return { code: "constraint_violated", field: `${prefix}.${c.field}`, constraint: c.text };
+    if (!c.holds(p))
+      return { code: "constraint_violated", field: `${prefix}.${c.field}`, constraint: c.text };
   }
   return undefined;
 }
@@ -96,8 +110,23 @@ export function withParams(model: Model, params: Params, prefix = "model.params"
     if (!Number.isFinite(v)) return fail({ code: "not_finite", field, received: String(v) });
     const below = info.minInclusive ? v < info.min : v <= info.min;
     const above = info.maxInclusive ? v > info.max : v >= info.max;
-    if (below || above) return fail({ code: "param_out_of_range", field, value: v, min: info.min, max: info.max, minInclusive: info.minInclusive, maxInclusive: info.maxInclusive });
+    if (below || above)
+      return fail({
+        code: "param_out_of_range",
+        field,
+        value: v,
+        min: info.min,
+        max: info.max,
+        minInclusive: info.minInclusive,
+        maxInclusive: info.maxInclusive,
+      });
   }
-  for (const c of model.growth.constraints) if (!c.holds(params)) return fail({ code: "constraint_violated", field: `${prefix}.${c.field.replace(/^params\./, "")}`, constraint: c.text });
+  for (const c of model.growth.constraints)
+    if (!c.holds(params))
+      return fail({
+        code: "constraint_violated",
+        field: `${prefix}.${c.field.replace(/^params\./, "")}`,
+        constraint: c.text,
+      });
   return ok({ ...model, params });
 }

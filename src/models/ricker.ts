@@ -26,7 +26,13 @@ export const ricker: GrowthFamily<RickerParams> = {
   equation: "N[t+1] = N[t]·exp(r·(1 − N[t−T]/K))",
   source: "Ricker, W. E. (1954). J. Fish. Res. Board Can. 11: 559–623",
   params: [
-    param("r", "per year", "intrinsic rate of increase (log of maximum per-capita growth)", { min: 0, max: 10 }, 1),
+    param(
+      "r",
+      "per year",
+      "intrinsic rate of increase (log of maximum per-capita growth)",
+      { min: 0, max: 10 },
+      1,
+    ),
     carryingCapacity,
   ],
   constraints: [],

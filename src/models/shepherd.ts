@@ -28,7 +28,13 @@ export const shepherd: GrowthFamily<ShepherdParams> = {
   params: [
     param("R0", "dimensionless", "maximum per-capita reproduction (at low density)", { min: 1, max: 1e4 }, 3),
     carryingCapacity,
-    param("delta", "dimensionless", "compensation exponent δ (1 = Beverton–Holt, > 1 overcompensation)", { min: 0, max: 10 }, 2),
+    param(
+      "delta",
+      "dimensionless",
+      "compensation exponent δ (1 = Beverton–Holt, > 1 overcompensation)",
+      { min: 0, max: 10 },
+      2,
+    ),
   ],
   constraints: [],
   factor: (m, { R0, K, delta }) => R0 / (1 + (R0 - 1) * Math.pow(m / K, delta)),

@@ -40,7 +40,10 @@ export function rickerToStockRecruitment(p: RickerParams): StockRecruitmentParam
  * Source: Beverton, R. J. H. & Holt, S. J. (1957). Fishery Investigations Ser. II, 19.
  * @example bevertonHoltFromStockRecruitment({ a: 3, b: 0.002 }) // => ok({ R0: 3, K: 1000 })
  */
-export function bevertonHoltFromStockRecruitment(sr: StockRecruitmentParams, field = "a"): Result<BevertonHoltParams> {
+export function bevertonHoltFromStockRecruitment(
+  sr: StockRecruitmentParams,
+  field = "a",
+): Result<BevertonHoltParams> {
   const bad = checkAB(sr, field);
   if (bad) return bad;
   return ok({ R0: sr.a, K: (sr.a - 1) / sr.b });
@@ -55,7 +58,9 @@ function checkAB(sr: StockRecruitmentParams, field: string): Result<never> | und
   const bField = field.replace(/a$/, "b");
   if (!Number.isFinite(sr.a)) return fail({ code: "not_finite", field, received: String(sr.a) });
   if (!Number.isFinite(sr.b)) return fail({ code: "not_finite", field: bField, received: String(sr.b) });
-  if (!(sr.a > 1)) return fail({ code: "param_out_of_range", field, value: sr.a, min: 1, minInclusive: false });
-  if (!(sr.b > 0)) return fail({ code: "param_out_of_range", field: bField, value: sr.b, min: 0, minInclusive: false });
+  if (!(sr.a > 1))
+    return fail({ code: "param_out_of_range", field, value: sr.a, min: 1, minInclusive: false });
+  if (!(sr.b > 0))
+    return fail({ code: "param_out_of_range", field: bField, value: sr.b, min: 0, minInclusive: false });
   return undefined;
 }

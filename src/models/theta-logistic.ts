@@ -28,7 +28,13 @@ export const thetaLogistic: GrowthFamily<ThetaLogisticParams> = {
   params: [
     param("r", "per year", "intrinsic rate of increase", { min: 0, max: 3 }, 1),
     carryingCapacity,
-    param("theta", "dimensionless", "shape exponent θ (1 = logistic; production peaks above K/2 for θ > 1)", { min: 0, max: 20 }, 1),
+    param(
+      "theta",
+      "dimensionless",
+      "shape exponent θ (1 = logistic; production peaks above K/2 for θ > 1)",
+      { min: 0, max: 20 },
+      1,
+    ),
   ],
   constraints: [],
   factor: (m, { r, K, theta }) => 1 + r * (1 - Math.pow(m / K, theta)),

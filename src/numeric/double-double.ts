@@ -29,7 +29,7 @@ export function twoProduct(a: number, b: number, out: DoubleDouble): DoubleDoubl
   const bh = t - (t - b);
   const bl = b - bh;
   out.hi = p;
-  out.lo = al * bl - (((p - ah * bh) - al * bh) - ah * bl);
+  out.lo = al * bl - (p - ah * bh - al * bh - ah * bl);
   return out;
 }
 
@@ -38,7 +38,7 @@ export function twoSum(a: number, b: number, out: DoubleDouble): DoubleDouble {
   const s = a + b;
   const bb = s - a;
   out.hi = s;
-  out.lo = (a - (s - bb)) + (b - bb);
+  out.lo = a - (s - bb) + (b - bb);
   return out;
 }
 

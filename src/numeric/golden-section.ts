@@ -10,7 +10,12 @@
  * Source: Kiefer, J. (1953). Sequential minimax search for a maximum. Proc. Amer. Math.
  * Soc. 4: 502–506.
  */
-export function maximiseOnInterval(f: (x: number) => number, lo: number, hi: number, grid = 256): { x: number; value: number } {
+export function maximiseOnInterval(
+  f: (x: number) => number,
+  lo: number,
+  hi: number,
+  grid = 256,
+): { x: number; value: number } {
   let best = lo;
   let bestValue = -Infinity;
   const h = (hi - lo) / grid;

@@ -164,11 +164,21 @@ class ClosedLoopMap implements ClosedLoop {
       taken = aim < n ? aim : n;
       spawners = n - taken;
       const dens = T === 0 ? spawners : x[bStart + T - 1]!;
-      let p = spawners > 0 ? (noise ? this.noisyProduction(spawners, dens, noise.logProcess) : spawners * this.growth.factor(dens, this.params)) : 0;
+      let p =
+        spawners > 0
+          ? noise
+            ? this.noisyProduction(spawners, dens, noise.logProcess)
+            : spawners * this.growth.factor(dens, this.params)
+          : 0;
       next = (p < 0 ? 0 : p) + this.stocking;
     } else {
       const dens = T === 0 ? n : x[T]!;
-      let p = n > 0 ? (noise ? this.noisyProduction(n, dens, noise.logProcess) : n * this.growth.factor(dens, this.params)) : 0;
+      let p =
+        n > 0
+          ? noise
+            ? this.noisyProduction(n, dens, noise.logProcess)
+            : n * this.growth.factor(dens, this.params)
+          : 0;
       if (p < 0) p = 0;
       taken = aim < p ? aim : p;
       next = p - taken + this.stocking;
@@ -200,10 +210,18 @@ class ClosedLoopMap implements ClosedLoop {
   /** base · g(dens) · exp(ε), with one exp for exponential families. */
   private noisyProduction(base: number, dens: number, logProcess: number): number {
     const lf = this.logFactor;
-    return lf ? base * Math.exp(lf(dens, this.params) + logProcess) : base * this.growth.factor(dens, this.params) * Math.exp(logProcess);
+    return lf
+      ? base * Math.exp(lf(dens, this.params) + logProcess)
+      : base * this.growth.factor(dens, this.params) * Math.exp(logProcess);
   }
 
-  nextWith(n: number, logProcess: number, survey: number, implementation: number, record: StepRecord): number {
+  nextWith(
+    n: number,
+    logProcess: number,
+    survey: number,
+    implementation: number,
+    record: StepRecord,
+  ): number {
     const quota = this.harvest.quota(n * survey);
     const aim = quota * implementation;
     let next: number;

@@ -53,5 +53,12 @@ export function msy(model: Model, timing: Timing = "after"): Result<MsyQuantitie
     source = "numeric: grid scan and golden-section search of f(S) − S";
   }
   const nMsy = timing === "after" ? s : s + value;
-  return ok({ msy: value, nMsy, hMsy: value / nMsy, escapementMsy: s, method: peak ? "closed form" : "numeric", source });
+  return ok({
+    msy: value,
+    nMsy,
+    hMsy: value / nMsy,
+    escapementMsy: s,
+    method: peak ? "closed form" : "numeric",
+    source,
+  });
 }

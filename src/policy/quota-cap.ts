@@ -7,7 +7,12 @@
  * A quota that was zero is not capped: otherwise a closed fishery could never reopen
  * (common practice, no source).
  */
-export function capQuota(proposed: number, previous: number, maxIncrease: number, maxDecrease: number): number {
+export function capQuota(
+  proposed: number,
+  previous: number,
+  maxIncrease: number,
+  maxDecrease: number,
+): number {
   if (!(previous > 0)) return proposed;
   const lo = previous * (1 - maxDecrease);
   const hi = previous * (1 + maxIncrease);

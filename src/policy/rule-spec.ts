@@ -20,22 +20,81 @@ const abundanceUnit = "same unit as the abundance";
 
 /** Every numeric rule setting, with its unit and range. */
 export const RULE_SETTINGS: Readonly<Record<string, ParamInfo>> = {
-  quota: param("quota", `${abundanceUnit} per year`, "fixed annual catch Q", { min: 0, max: MAX_ABUNDANCE, minInclusive: true }, 100),
-  rate: param("rate", "fraction of the surveyed stock per year", "harvest rate h", { min: 0, max: 1, minInclusive: true, maxInclusive: false }, 0.2),
-  escapement: param("escapement", abundanceUnit, "escapement target E left after the catch", { min: 0, max: MAX_ABUNDANCE, minInclusive: true }, 500),
-  lowerTrigger: param("lowerTrigger", abundanceUnit, "survey level at and below which the fishery closes", { min: 0, max: MAX_ABUNDANCE, minInclusive: true }, 200),
-  upperTrigger: param("upperTrigger", abundanceUnit, "survey level from which the full rate applies", { min: 0, max: MAX_ABUNDANCE }, 500),
-  maxRate: param("maxRate", "fraction of the surveyed stock per year", "full harvest rate h_max above the upper trigger", { min: 0, max: 1, minInclusive: true, maxInclusive: false }, 0.3),
-  stocking: param("stocking", `${abundanceUnit} per year`, "animals released each year, A", { min: 0, max: MAX_ABUNDANCE, minInclusive: true }, 0),
-  maxIncrease: param("maxIncrease", "fraction of last year's quota", "largest rise of the quota from one year to the next", { min: 0, max: 10, minInclusive: true }, 0.15),
-  maxDecrease: param("maxDecrease", "fraction of last year's quota", "largest cut of the quota from one year to the next", { min: 0, max: 1, minInclusive: true }, 0.15),
+  quota: param(
+    "quota",
+    `${abundanceUnit} per year`,
+    "fixed annual catch Q",
+    { min: 0, max: MAX_ABUNDANCE, minInclusive: true },
+    100,
+  ),
+  rate: param(
+    "rate",
+    "fraction of the surveyed stock per year",
+    "harvest rate h",
+    { min: 0, max: 1, minInclusive: true, maxInclusive: false },
+    0.2,
+  ),
+  escapement: param(
+    "escapement",
+    abundanceUnit,
+    "escapement target E left after the catch",
+    { min: 0, max: MAX_ABUNDANCE, minInclusive: true },
+    500,
+  ),
+  lowerTrigger: param(
+    "lowerTrigger",
+    abundanceUnit,
+    "survey level at and below which the fishery closes",
+    { min: 0, max: MAX_ABUNDANCE, minInclusive: true },
+    200,
+  ),
+  upperTrigger: param(
+    "upperTrigger",
+    abundanceUnit,
+    "survey level from which the full rate applies",
+    { min: 0, max: MAX_ABUNDANCE },
+    500,
+  ),
+  maxRate: param(
+    "maxRate",
+    "fraction of the surveyed stock per year",
+    "full harvest rate h_max above the upper trigger",
+    { min: 0, max: 1, minInclusive: true, maxInclusive: false },
+    0.3,
+  ),
+  stocking: param(
+    "stocking",
+    `${abundanceUnit} per year`,
+    "animals released each year, A",
+    { min: 0, max: MAX_ABUNDANCE, minInclusive: true },
+    0,
+  ),
+  maxIncrease: param(
+    "maxIncrease",
+    "fraction of last year's quota",
+    "largest rise of the quota from one year to the next",
+    { min: 0, max: 10, minInclusive: true },
+    0.15,
+  ),
+  maxDecrease: param(
+    "maxDecrease",
+    "fraction of last year's quota",
+    "largest cut of the quota from one year to the next",
+    { min: 0, max: 1, minInclusive: true },
+    0.15,
+  ),
 };
 
 const n = (name: string) => numberSchema(RULE_SETTINGS[name]!);
 
 const common = {
   stocking: n("stocking").default(0),
-  surveyLag: z.int().min(0).max(MAX_SURVEY_LAG).default(0).describe("survey lag L: the rule acts on the survey of L years earlier [years]"),
+  surveyLag: z
+    .int()
+    .min(0)
+    .max(MAX_SURVEY_LAG)
+    .default(0)
+    .describe("survey lag L: the rule acts on the survey of L years earlier [years]"),
   timing: z.enum(TIMINGS).default("after").describe("harvest before or after reproduction"),
   quotaChange: z
     .strictObject({ maxIncrease: n("maxIncrease"), maxDecrease: n("maxDecrease") })
@@ -72,7 +131,12 @@ export type Rule = RuleSpec & { readonly harvest: HarvestRule };
  */
 export function parseRule(input: unknown, prefix = "rule"): Result<Rule> {
   if (input === null || typeof input !== "object" || Array.isArray(input)) {
-    return fail({ code: "wrong_type", field: prefix, expected: "object", received: input === null ? "null" : Array.isArray(input) ? "array" : typeof input });
+    return fail({
+      code: "wrong_type",
+      field: prefix,
+      expected: "object",
+      received: input === null ? "null" : Array.isArray(input) ? "array" : typeof input,
+    });
   }
   const kind = (input as { kind?: unknown }).kind;
   if (kind === undefined) return fail({ code: "missing_field", field: `${prefix}.kind` });
@@ -81,11 +145,17 @@ export function parseRule(input: unknown, prefix = "rule"): Result<Rule> {
   }
   const parsed = ruleSpecSchema.safeParse(input);
   if (!parsed.success) {
-    return fail(issueFromZod(parsed.error, input, (path) => RULE_SETTINGS[String(path[path.length - 1])], prefix));
+    return fail(
+      issueFromZod(parsed.error, input, (path) => RULE_SETTINGS[String(path[path.length - 1])], prefix),
+    );
   }
   const spec = parsed.data;
   if (spec.kind === "threshold" && !(spec.lowerTrigger < spec.upperTrigger)) {
-    return fail({ code: "constraint_violated", field: `${prefix}.upperTrigger`, constraint: "the upper trigger must be above the lower trigger" });
+    return fail({
+      code: "constraint_violated",
+      field: `${prefix}.upperTrigger`,
+      constraint: "the upper trigger must be above the lower trigger",
+    });
   }
   return ok({ ...spec, harvest: buildHarvest(spec) });
 }

@@ -57,7 +57,15 @@ export interface YearWithCatch {
  * M is this year's base when `pastBase` is null (no delay), else `pastBase` (the base T years
  * back). A negative growth step is set to zero, as in closed-loop.ts. Writes into `out`.
  */
-export function yearWithCatch(model: Model, timing: Timing, n: number, pastBase: number | null, c: number, a: number, out: YearWithCatch): YearWithCatch {
+export function yearWithCatch(
+  model: Model,
+  timing: Timing,
+  n: number,
+  pastBase: number | null,
+  c: number,
+  a: number,
+  out: YearWithCatch,
+): YearWithCatch {
   const { growth, params } = model;
   if (timing === "before") {
     const taken = c < n ? c : n;

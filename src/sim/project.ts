@@ -29,7 +29,12 @@ export interface Projection {
  * records abundance, survey, quota, catch and stocking. No NaN or Infinity is returned: a
  * run that explodes stops at the last finite year with status "unbounded".
  */
-export function projectLoop(loop: ClosedLoop, start: readonly number[], horizon: number, startYear = 0): Projection {
+export function projectLoop(
+  loop: ClosedLoop,
+  start: readonly number[],
+  horizon: number,
+  startYear = 0,
+): Projection {
   const bound = UNBOUNDED_FACTOR * loop.model.params.K!;
   const x = loop.initialState(start);
   const rec: StepRecord = { survey: 0, quota: 0, catch: 0, stocking: 0 };
@@ -43,8 +48,22 @@ export function projectLoop(loop: ClosedLoop, start: readonly number[], horizon:
   for (let t = 0; t < horizon; t++) {
     loop.step(x, x, rec);
     const next = x[0]!;
-    if (!Number.isFinite(next) || next > bound || !Number.isFinite(rec.quota) || !Number.isFinite(rec.catch)) {
-      return { years, abundance, survey, quota, catch: caught, stocking, status: "unbounded", extinctionYear };
+    if (
+      !Number.isFinite(next) ||
+      next > bound ||
+      !Number.isFinite(rec.quota) ||
+      !Number.isFinite(rec.catch)
+    ) {
+      return {
+        years,
+        abundance,
+        survey,
+        quota,
+        catch: caught,
+        stocking,
+        status: "unbounded",
+        extinctionYear,
+      };
     }
     years.push(startYear + t);
     survey.push(rec.survey);

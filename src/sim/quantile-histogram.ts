@@ -62,7 +62,12 @@ export const HISTOGRAM_GROUPS = Math.ceil(HISTOGRAM_BINS / GROUP_BINS);
  * (HISTOGRAM_GROUPS per year), reading only bin 0 and each year's `spans[t]` (every count
  * must lie in those).
  */
-export function addGroupSums(counts: Uint32Array, groups: Uint32Array, years: number, spans: (t: number) => readonly [number, number]): void {
+export function addGroupSums(
+  counts: Uint32Array,
+  groups: Uint32Array,
+  years: number,
+  spans: (t: number) => readonly [number, number],
+): void {
   for (let t = 0; t < years; t++) {
     const off = t * HISTOGRAM_BINS;
     const g0 = t * HISTOGRAM_GROUPS;
@@ -79,7 +84,12 @@ export function addGroupSums(counts: Uint32Array, groups: Uint32Array, years: nu
  * cumulative count crosses a level are read, in bin order (values are increasing in the bin
  * index, with exact zeros in bin 0). An empty histogram gives zeros.
  */
-export function histogramPercentiles(group: (g: number) => number, bin: (i: number) => number, levels: readonly number[], K: number): number[] {
+export function histogramPercentiles(
+  group: (g: number) => number,
+  bin: (i: number) => number,
+  levels: readonly number[],
+  K: number,
+): number[] {
   const sums = new Float64Array(HISTOGRAM_GROUPS);
   let total = 0;
   for (let g = 0; g < HISTOGRAM_GROUPS; g++) total += sums[g] = group(g);

@@ -57,14 +57,19 @@ function inBlockOrder(list: readonly ProjectionParts[]): ProjectionParts[] {
   const sorted = [...list].sort((a, b) => a.blocks[0] - b.blocks[0]);
   let expect = 0;
   for (const p of sorted) {
-    if (p.blocks[0] !== expect || p.horizon !== sorted[0]!.horizon) throw new Error("summariseProjection: the parts must cover the blocks contiguously, with one horizon");
+    if (p.blocks[0] !== expect || p.horizon !== sorted[0]!.horizon)
+      throw new Error("summariseProjection: the parts must cover the blocks contiguously, with one horizon");
     expect = p.blocks[1];
   }
   return sorted;
 }
 
 /** The smallest and largest value of year t over all parts. */
-function yearRange(parts: readonly ProjectionParts[], which: "abundanceRange" | "catchRange", t: number): [number, number] {
+function yearRange(
+  parts: readonly ProjectionParts[],
+  which: "abundanceRange" | "catchRange",
+  t: number,
+): [number, number] {
   let lo = Number.MAX_VALUE;
   let hi = -Number.MAX_VALUE;
   for (const p of parts) {
@@ -79,7 +84,14 @@ function clamp(v: number, lo: number, hi: number): number {
 }
 
 /** Percentiles of year t's histogram (`counts`, with its group sums `groups`) summed over all parts. */
-function yearPercentiles(parts: readonly ProjectionParts[], counts: "abundanceCounts" | "catchCounts", groups: "abundanceGroups" | "catchGroups", t: number, levels: readonly number[], K: number): number[] {
+function yearPercentiles(
+  parts: readonly ProjectionParts[],
+  counts: "abundanceCounts" | "catchCounts",
+  groups: "abundanceGroups" | "catchGroups",
+  t: number,
+  levels: readonly number[],
+  K: number,
+): number[] {
   const g0 = t * HISTOGRAM_GROUPS;
   const b0 = t * HISTOGRAM_BINS;
   return histogramPercentiles(
@@ -106,7 +118,11 @@ function yearPercentiles(parts: readonly ProjectionParts[], counts: "abundanceCo
  * ed. Wiley, §3.2; AAV as in Punt, A. E. et al. (2016). Management strategy evaluation:
  * best practices. Fish Fish. 17: 303–334 (from memory).
  */
-export function summariseProjection(list: readonly ProjectionParts[], scenario: Scenario, u: Uncertainty): StochasticProjection {
+export function summariseProjection(
+  list: readonly ProjectionParts[],
+  scenario: Scenario,
+  u: Uncertainty,
+): StochasticProjection {
   const parts = inBlockOrder(list);
   const H = scenario.horizon;
   const K = scenario.model.params.K!;
@@ -116,11 +132,15 @@ export function summariseProjection(list: readonly ProjectionParts[], scenario: 
   const caught = levels.map(() => new Array<number>(H).fill(0));
   for (let t = 0; t <= H; t++) {
     const [lo, hi] = yearRange(parts, "abundanceRange", t);
-    yearPercentiles(parts, "abundanceCounts", "abundanceGroups", t, levels, K).forEach((v, i) => (abundance[i]![t] = clamp(v, lo, hi)));
+    yearPercentiles(parts, "abundanceCounts", "abundanceGroups", t, levels, K).forEach(
+      (v, i) => (abundance[i]![t] = clamp(v, lo, hi)),
+    );
   }
   for (let t = 0; t < H; t++) {
     const [lo, hi] = yearRange(parts, "catchRange", t);
-    yearPercentiles(parts, "catchCounts", "catchGroups", t, levels, K).forEach((v, i) => (caught[i]![t] = clamp(v, lo, hi)));
+    yearPercentiles(parts, "catchCounts", "catchGroups", t, levels, K).forEach(
+      (v, i) => (caught[i]![t] = clamp(v, lo, hi)),
+    );
   }
   // Floating-point sums in block order, so any split across workers adds up identically.
   let catchTotal = 0;
@@ -175,7 +195,11 @@ export function summariseProjection(list: readonly ProjectionParts[], scenario: 
       belowLimit: estimate(everBelow, n),
       belowLimitByYear: below.map((c) => c / n),
       quasiExtinction: estimate(everQuasi, n),
-      recovery: { ...estimate(recovered, n), medianYears, meanYears: recovered > 0 ? yearsSum / recovered : null },
+      recovery: {
+        ...estimate(recovered, n),
+        medianYears,
+        meanYears: recovered > 0 ? yearsSum / recovered : null,
+      },
       meanCatch: H > 0 ? catchTotal / (n * H) : 0,
       medianCatch: H > 0 ? pooledCatchMedian(parts, H, K) : 0,
       averageAnnualVariation: aavCount > 0 ? aav / aavCount : null,
@@ -192,7 +216,12 @@ function pooledCatchMedian(parts: readonly ProjectionParts[], H: number, K: numb
     for (const p of parts) for (let t = 0; t < H; t++) s += p[key][t * stride + i]!;
     return s;
   };
-  return histogramPercentiles((g) => sum("catchGroups", HISTOGRAM_GROUPS, g), (i) => sum("catchCounts", HISTOGRAM_BINS, i), [50], K)[0]!;
+  return histogramPercentiles(
+    (g) => sum("catchGroups", HISTOGRAM_GROUPS, g),
+    (i) => sum("catchCounts", HISTOGRAM_BINS, i),
+    [50],
+    K,
+  )[0]!;
 }
 
 function estimate(count: number, n: number): Estimate {

@@ -30,15 +30,31 @@ export interface RobustVerdict {
  * Source (model averaging by Akaike weight): Burnham, K. P. & Anderson, D. R. (2002). Model
  * Selection and Multimodel Inference, 2nd ed. Springer, §4.2.
  */
-export function robustVerdict(models: readonly { model: Model; weight: number }[], rule: Rule): Result<RobustVerdict> {
-  if (models.length === 0) return fail({ code: "constraint_violated", field: "models", constraint: "give at least one model" });
+export function robustVerdict(
+  models: readonly { model: Model; weight: number }[],
+  rule: Rule,
+): Result<RobustVerdict> {
+  if (models.length === 0)
+    return fail({ code: "constraint_violated", field: "models", constraint: "give at least one model" });
   let total = 0;
   for (let i = 0; i < models.length; i++) {
     const w = models[i]!.weight;
-    if (!Number.isFinite(w) || w < 0) return fail({ code: "param_out_of_range", field: `models[${i}].weight`, value: Number.isFinite(w) ? w : 0, min: 0, minInclusive: true });
+    if (!Number.isFinite(w) || w < 0)
+      return fail({
+        code: "param_out_of_range",
+        field: `models[${i}].weight`,
+        value: Number.isFinite(w) ? w : 0,
+        min: 0,
+        minInclusive: true,
+      });
     total += w;
   }
-  if (!(total > 0)) return fail({ code: "constraint_violated", field: "models", constraint: "the weights must not all be zero" });
+  if (!(total > 0))
+    return fail({
+      code: "constraint_violated",
+      field: "models",
+      constraint: "the weights must not all be zero",
+    });
   const weights: Record<RobustClass, number> = { stable: 0, oscillating: 0, marginal: 0, collapse: 0 };
   const perModel = models.map(({ model, weight }) => {
     const a = analyseStability(closedLoop(model, rule));
@@ -50,7 +66,11 @@ export function robustVerdict(models: readonly { model: Model; weight: number }[
     else if (op.verdict.kind === "unstable-fold") cls = "collapse";
     else cls = "oscillating";
     weights[cls] += weight / total;
-    return { weight: weight / total, class: cls, label: op ? op.verdict.label : "no positive equilibrium: the stock collapses" };
+    return {
+      weight: weight / total,
+      class: cls,
+      label: op ? op.verdict.label : "no positive equilibrium: the stock collapses",
+    };
   });
   const parts = ROBUST_CLASSES.filter((c) => weights[c] > 0)
     .sort((a, b) => weights[b] - weights[a])

@@ -34,9 +34,19 @@ export interface RuleOutcome {
 
 /** Validates a list of candidate rule specs, naming `rules[i].field` on failure. */
 export function parseRules(input: unknown, field = "rules"): Result<Rule[]> {
-  if (!Array.isArray(input)) return fail({ code: "wrong_type", field, expected: "array of rule specs", received: input === null ? "null" : typeof input });
+  if (!Array.isArray(input))
+    return fail({
+      code: "wrong_type",
+      field,
+      expected: "array of rule specs",
+      received: input === null ? "null" : typeof input,
+    });
   if (input.length < 1 || input.length > MAX_COMPARED_RULES) {
-    return fail({ code: "constraint_violated", field, constraint: `give between 1 and ${MAX_COMPARED_RULES} rules` });
+    return fail({
+      code: "constraint_violated",
+      field,
+      constraint: `give between 1 and ${MAX_COMPARED_RULES} rules`,
+    });
   }
   const out: Rule[] = [];
   for (let i = 0; i < input.length; i++) {
@@ -74,6 +84,10 @@ export function ruleOutcome(scenario: Scenario, rule: Rule, projection: Stochast
  * rows are due to the rules, not to luck. On the calling thread; the worker pool's
  * compareRules gives the same numbers.
  */
-export function compareRules(scenario: Scenario, rules: readonly Rule[], uncertainty: Uncertainty): RuleOutcome[] {
+export function compareRules(
+  scenario: Scenario,
+  rules: readonly Rule[],
+  uncertainty: Uncertainty,
+): RuleOutcome[] {
   return rules.map((rule) => ruleOutcome(scenario, rule, projectStochastic(scenario, uncertainty, { rule })));
 }

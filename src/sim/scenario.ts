@@ -31,7 +31,12 @@ const startSchema = z.union([
  */
 export function parseScenario(input: unknown): Result<Scenario> {
   if (input === null || typeof input !== "object" || Array.isArray(input)) {
-    return fail({ code: "wrong_type", field: "(scenario)", expected: "object", received: Array.isArray(input) ? "array" : typeof input });
+    return fail({
+      code: "wrong_type",
+      field: "(scenario)",
+      expected: "object",
+      received: Array.isArray(input) ? "array" : typeof input,
+    });
   }
   const raw = input as Record<string, unknown>;
   const model = parseModel(raw.model, "model");
@@ -42,10 +47,12 @@ export function parseScenario(input: unknown): Result<Scenario> {
   if (!start.ok) return start;
   const horizon = checkInteger(raw.horizon, "horizon", 1, MAX_HORIZON);
   if (!horizon.ok) return horizon;
-  const startYear = raw.startYear === undefined ? ok(0) : checkInteger(raw.startYear, "startYear", -100000, 100000);
+  const startYear =
+    raw.startYear === undefined ? ok(0) : checkInteger(raw.startYear, "startYear", -100000, 100000);
   if (!startYear.ok) return startYear;
   for (const key of Object.keys(raw)) {
-    if (!["model", "rule", "start", "horizon", "startYear"].includes(key)) return fail({ code: "unknown_field", field: key });
+    if (!["model", "rule", "start", "horizon", "startYear"].includes(key))
+      return fail({ code: "unknown_field", field: key });
   }
   return ok({
     model: model.value,
@@ -62,30 +69,64 @@ function checkStart(v: unknown): Result<number[]> {
   const parsed = startSchema.safeParse(v);
   if (parsed.success) return ok(typeof parsed.data === "number" ? [parsed.data] : parsed.data);
   const values = Array.isArray(v) ? v : [v];
-  if (values.length === 0) return fail({ code: "constraint_violated", field: "start", constraint: "give at least one start abundance" });
-  if (values.length > 101) return fail({ code: "constraint_violated", field: "start", constraint: "at most 101 values (the start and 100 years of history)" });
+  if (values.length === 0)
+    return fail({
+      code: "constraint_violated",
+      field: "start",
+      constraint: "give at least one start abundance",
+    });
+  if (values.length > 101)
+    return fail({
+      code: "constraint_violated",
+      field: "start",
+      constraint: "at most 101 values (the start and 100 years of history)",
+    });
   for (let i = 0; i < values.length; i++) {
     const field = Array.isArray(v) ? `start[${i}]` : "start";
     const issue = abundanceIssue(values[i], field);
     if (issue) return fail(issue);
   }
-  return fail({ code: "wrong_type", field: "start", expected: "a number or an array of numbers", received: typeof v });
+  return fail({
+    code: "wrong_type",
+    field: "start",
+    expected: "a number or an array of numbers",
+    received: typeof v,
+  });
 }
 
 function abundanceIssue(x: unknown, field: string): Issue | undefined {
-  if (typeof x !== "number") return { code: "wrong_type", field, expected: "number", received: x === null ? "null" : typeof x };
+  if (typeof x !== "number")
+    return { code: "wrong_type", field, expected: "number", received: x === null ? "null" : typeof x };
   if (!Number.isFinite(x)) return { code: "not_finite", field, received: String(x) };
   if (x < 0 || x > MAX_ABUNDANCE) {
-    return { code: "param_out_of_range", field, value: x, min: 0, max: MAX_ABUNDANCE, minInclusive: true, maxInclusive: true };
+    return {
+      code: "param_out_of_range",
+      field,
+      value: x,
+      min: 0,
+      max: MAX_ABUNDANCE,
+      minInclusive: true,
+      maxInclusive: true,
+    };
   }
   return undefined;
 }
 
 function checkInteger(v: unknown, field: string, min: number, max: number): Result<number> {
   if (v === undefined) return fail({ code: "missing_field", field });
-  if (typeof v !== "number") return fail({ code: "wrong_type", field, expected: "integer", received: v === null ? "null" : typeof v });
+  if (typeof v !== "number")
+    return fail({ code: "wrong_type", field, expected: "integer", received: v === null ? "null" : typeof v });
   if (!Number.isFinite(v)) return fail({ code: "not_finite", field, received: String(v) });
   if (!Number.isInteger(v)) return fail({ code: "not_an_integer", field, value: v });
-  if (v < min || v > max) return fail({ code: "param_out_of_range", field, value: v, min, max, minInclusive: true, maxInclusive: true });
+  if (v < min || v > max)
+    return fail({
+      code: "param_out_of_range",
+      field,
+      value: v,
+      min,
+      max,
+      minInclusive: true,
+      maxInclusive: true,
+    });
   return ok(v);
 }

@@ -79,7 +79,14 @@ const UNBOUNDED = 8;
  * Hall, ch. 7 (from memory); bias correction −σ²/2: Aitchison, J. & Brown, J. A. C. (1957).
  * The Lognormal Distribution. Cambridge University Press.
  */
-export function simulateBlocks(scenario: Scenario, uncertainty: Uncertainty, from: number, to: number, rule: Rule = scenario.rule, engine: ProjectionEngine = "auto"): ProjectionParts {
+export function simulateBlocks(
+  scenario: Scenario,
+  uncertainty: Uncertainty,
+  from: number,
+  to: number,
+  rule: Rule = scenario.rule,
+  engine: ProjectionEngine = "auto",
+): ProjectionParts {
   const H = scenario.horizon;
   const K = scenario.model.params.K!;
   const parts: ProjectionParts = {
@@ -111,11 +118,27 @@ export function simulateBlocks(scenario: Scenario, uncertainty: Uncertainty, fro
     const state = new BlockState(Math.min(BLOCK_SIZE, uncertainty.replicates), loops[0]!.layout.dimension);
     for (let b = from; b < to; b++) {
       const g = streams.next().value as IntSource;
-      runBlock(parts, b - from, blockLength(b, uncertainty.replicates), g, loops, scenario, uncertainty, K, state);
+      runBlock(
+        parts,
+        b - from,
+        blockLength(b, uncertainty.replicates),
+        g,
+        loops,
+        scenario,
+        uncertainty,
+        K,
+        state,
+      );
     }
   }
-  const span = (positiveMin: Float64Array, range: Float64Array) => (t: number) => positiveSpan(positiveMin[t]!, range[2 * t + 1]!, 1 / K);
-  addGroupSums(parts.abundanceCounts, parts.abundanceGroups, H + 1, span(parts.abundancePositiveMin, parts.abundanceRange));
+  const span = (positiveMin: Float64Array, range: Float64Array) => (t: number) =>
+    positiveSpan(positiveMin[t]!, range[2 * t + 1]!, 1 / K);
+  addGroupSums(
+    parts.abundanceCounts,
+    parts.abundanceGroups,
+    H + 1,
+    span(parts.abundancePositiveMin, parts.abundanceRange),
+  );
   addGroupSums(parts.catchCounts, parts.catchGroups, H, span(parts.catchPositiveMin, parts.catchRange));
   return parts;
 }
@@ -153,12 +176,23 @@ class BlockState {
     this.flags = new Uint8Array(size);
     this.pick = new Int32Array(size);
     const flat = new Float64Array(dimension > 1 ? size * dimension : 0);
-    this.x = dimension > 1 ? Array.from({ length: size }, (_, k) => flat.subarray(k * dimension, (k + 1) * dimension)) : [];
+    this.x =
+      dimension > 1
+        ? Array.from({ length: size }, (_, k) => flat.subarray(k * dimension, (k + 1) * dimension))
+        : [];
   }
 }
 
 /** One year of a replicate whose state is a vector (delays, survey lags, quota caps). */
-function vectorYear(loop: ClosedLoop, x: Float64Array, lp: number, sm: number, im: number, rec: StepRecord, noise: StepNoise): number {
+function vectorYear(
+  loop: ClosedLoop,
+  x: Float64Array,
+  lp: number,
+  sm: number,
+  im: number,
+  rec: StepRecord,
+  noise: StepNoise,
+): number {
   noise.logProcess = lp;
   noise.survey = sm;
   noise.implementation = im;
@@ -166,7 +200,17 @@ function vectorYear(loop: ClosedLoop, x: Float64Array, lp: number, sm: number, i
   return x[0]!;
 }
 
-function runBlock(parts: ProjectionParts, slot: number, size: number, g: IntSource, loops: readonly ClosedLoop[], scenario: Scenario, u: Uncertainty, K: number, st: BlockState): void {
+function runBlock(
+  parts: ProjectionParts,
+  slot: number,
+  size: number,
+  g: IntSource,
+  loops: readonly ClosedLoop[],
+  scenario: Scenario,
+  u: Uncertainty,
+  K: number,
+  st: BlockState,
+): void {
   const H = scenario.horizon;
   const scale = 1 / K;
   const bound = UNBOUNDED_FACTOR * K;
@@ -186,7 +230,9 @@ function runBlock(parts: ProjectionParts, slot: number, size: number, g: IntSour
   const start = scenario.start[0]!;
   // Per-replicate set-up, in a fixed order of draws: the parameter set, then ε[−1].
   for (let k = 0; k < size; k++) {
-    pick[k] = single ? 0 : Math.min(loops.length - 1, Math.floor(((g.next() >>> 0) / 4294967296) * loops.length));
+    pick[k] = single
+      ? 0
+      : Math.min(loops.length - 1, Math.floor(((g.next() >>> 0) / 4294967296) * loops.length));
     eps[k] = rho !== 0 && sdP > 0 ? sdP * zigguratNormal(g) : 0;
     n[k] = start;
     prevCatch[k] = 0;
@@ -231,7 +277,9 @@ function runBlock(parts: ProjectionParts, slot: number, size: number, g: IntSour
       if (sdO > 0) sm = Math.exp(sdO * zigguratNormal(g) - halfO);
       if (sdI > 0) im = Math.exp(sdI * zigguratNormal(g) - halfI);
       const loop = single ? loop0 : loops[pick[k]!]!;
-      let next = vector ? vectorYear(loop, st.x[k]!, lp, sm, im, rec, noise) : loop.nextWith(n[k]!, lp, sm, im, rec);
+      let next = vector
+        ? vectorYear(loop, st.x[k]!, lp, sm, im, rec, noise)
+        : loop.nextWith(n[k]!, lp, sm, im, rec);
       let f = flags[k]!;
       if (!(next <= bound)) {
         next = bound;

@@ -10,7 +10,11 @@ import type { Uncertainty } from "./uncertainty.js";
  * use the worker pool, which gives the same numbers bit for bit.
  * `onProgress(done, total)` is called after each block of replicates.
  */
-export function projectStochastic(scenario: Scenario, uncertainty: Uncertainty, options: { rule?: Rule; onProgress?: (done: number, total: number) => void } = {}): StochasticProjection {
+export function projectStochastic(
+  scenario: Scenario,
+  uncertainty: Uncertainty,
+  options: { rule?: Rule; onProgress?: (done: number, total: number) => void } = {},
+): StochasticProjection {
   const total = projectionBlocks(uncertainty);
   const parts: ProjectionParts[] = [];
   for (let b = 0; b < total; b++) {

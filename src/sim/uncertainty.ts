@@ -14,16 +14,76 @@ export const MAX_PARAMETER_SETS = 20_000;
 
 /** The settings of a stochastic projection, with their units and ranges. */
 export const UNCERTAINTY_SETTINGS: Readonly<Record<string, ParamInfo>> = {
-  replicates: param("replicates", "replicates", "number of simulated futures", { min: 10, max: MAX_REPLICATES, minInclusive: true }, 1000),
-  seed: param("seed", "integer", "seed of the random numbers (the same seed gives the same numbers)", { min: 0, max: 2147483647, minInclusive: true }, 1),
-  processSd: param("processSd", "sd of ln(multiplier)", "lognormal process noise on production", { min: 0, max: 3, minInclusive: true }, 0.2),
-  processAutocorrelation: param("processAutocorrelation", "correlation", "lag-1 autocorrelation of the process noise", { min: -0.99, max: 0.99, minInclusive: true }, 0),
-  observationSd: param("observationSd", "sd of ln(multiplier)", "lognormal error of the survey the rule acts on", { min: 0, max: 3, minInclusive: true }, 0),
-  implementationSd: param("implementationSd", "sd of ln(multiplier)", "lognormal error of the catch taken against the quota", { min: 0, max: 3, minInclusive: true }, 0),
-  limit: param("limit", "abundance unit", "limit reference point (default 0.2·K)", { min: 0, max: MAX_ABUNDANCE, minInclusive: true }, 200),
-  quasiExtinction: param("quasiExtinction", "abundance unit", "quasi-extinction threshold (default 0.01·K)", { min: 0, max: MAX_ABUNDANCE, minInclusive: true }, 10),
-  recoveryTarget: param("recoveryTarget", "abundance unit", "recovery target (default 0.5·K)", { min: 0, max: MAX_ABUNDANCE, minInclusive: true }, 500),
-  count: param("count", "parameter sets", "draws taken from the covariance", { min: 1, max: MAX_PARAMETER_SETS, minInclusive: true }, 1000),
+  replicates: param(
+    "replicates",
+    "replicates",
+    "number of simulated futures",
+    { min: 10, max: MAX_REPLICATES, minInclusive: true },
+    1000,
+  ),
+  seed: param(
+    "seed",
+    "integer",
+    "seed of the random numbers (the same seed gives the same numbers)",
+    { min: 0, max: 2147483647, minInclusive: true },
+    1,
+  ),
+  processSd: param(
+    "processSd",
+    "sd of ln(multiplier)",
+    "lognormal process noise on production",
+    { min: 0, max: 3, minInclusive: true },
+    0.2,
+  ),
+  processAutocorrelation: param(
+    "processAutocorrelation",
+    "correlation",
+    "lag-1 autocorrelation of the process noise",
+    { min: -0.99, max: 0.99, minInclusive: true },
+    0,
+  ),
+  observationSd: param(
+    "observationSd",
+    "sd of ln(multiplier)",
+    "lognormal error of the survey the rule acts on",
+    { min: 0, max: 3, minInclusive: true },
+    0,
+  ),
+  implementationSd: param(
+    "implementationSd",
+    "sd of ln(multiplier)",
+    "lognormal error of the catch taken against the quota",
+    { min: 0, max: 3, minInclusive: true },
+    0,
+  ),
+  limit: param(
+    "limit",
+    "abundance unit",
+    "limit reference point (default 0.2·K)",
+    { min: 0, max: MAX_ABUNDANCE, minInclusive: true },
+    200,
+  ),
+  quasiExtinction: param(
+    "quasiExtinction",
+    "abundance unit",
+    "quasi-extinction threshold (default 0.01·K)",
+    { min: 0, max: MAX_ABUNDANCE, minInclusive: true },
+    10,
+  ),
+  recoveryTarget: param(
+    "recoveryTarget",
+    "abundance unit",
+    "recovery target (default 0.5·K)",
+    { min: 0, max: MAX_ABUNDANCE, minInclusive: true },
+    500,
+  ),
+  count: param(
+    "count",
+    "parameter sets",
+    "draws taken from the covariance",
+    { min: 1, max: MAX_PARAMETER_SETS, minInclusive: true },
+    1000,
+  ),
 };
 
 const s = (name: string) => numberSchema(UNCERTAINTY_SETTINGS[name]!);
@@ -49,7 +109,9 @@ export const uncertaintySchema = z.strictObject({
       }),
     ])
     .optional()
-    .describe("parameter uncertainty: a fit's bootstrap draws, or a mean and covariance matrix (natural scale)"),
+    .describe(
+      "parameter uncertainty: a fit's bootstrap draws, or a mean and covariance matrix (natural scale)",
+    ),
 });
 
 export type UncertaintyInput = z.input<typeof uncertaintySchema>;
@@ -82,10 +144,23 @@ export interface Uncertainty {
  */
 export function parseUncertainty(input: unknown, model: Model, prefix = "uncertainty"): Result<Uncertainty> {
   if (input === null || typeof input !== "object" || Array.isArray(input)) {
-    return fail({ code: "wrong_type", field: prefix, expected: "object", received: input === null ? "null" : Array.isArray(input) ? "array" : typeof input });
+    return fail({
+      code: "wrong_type",
+      field: prefix,
+      expected: "object",
+      received: input === null ? "null" : Array.isArray(input) ? "array" : typeof input,
+    });
   }
   const parsed = uncertaintySchema.safeParse(input);
-  if (!parsed.success) return fail(issueFromZod(parsed.error, input, (path) => UNCERTAINTY_SETTINGS[String(path[path.length - 1])], prefix));
+  if (!parsed.success)
+    return fail(
+      issueFromZod(
+        parsed.error,
+        input,
+        (path) => UNCERTAINTY_SETTINGS[String(path[path.length - 1])],
+        prefix,
+      ),
+    );
   const u = parsed.data;
   const K = model.params.K!;
   const models = parameterSets(u.parameters, model, u.seed, `${prefix}.parameters`);
@@ -117,7 +192,8 @@ function parameterSets(p: ParameterInput, model: Model, seed: number, field: str
       const params: Record<string, number> = { ...model.params };
       for (const [name, v] of Object.entries(p.draws[i]!)) {
         if (model.growth.params.some((q) => q.name === name)) params[name] = v;
-        else if (!FIT_NUISANCE.includes(name)) return fail({ code: "unknown_field", field: `${field}.draws[${i}].${name}` });
+        else if (!FIT_NUISANCE.includes(name))
+          return fail({ code: "unknown_field", field: `${field}.draws[${i}].${name}` });
       }
       const m = withParams(model, params, `${field}.draws[${i}]`);
       if (!m.ok) return m;
@@ -127,21 +203,38 @@ function parameterSets(p: ParameterInput, model: Model, seed: number, field: str
   }
   const names = Object.keys(p.mean);
   for (const name of names) {
-    if (!model.growth.params.some((q) => q.name === name)) return fail({ code: "unknown_field", field: `${field}.mean.${name}` });
+    if (!model.growth.params.some((q) => q.name === name))
+      return fail({ code: "unknown_field", field: `${field}.mean.${name}` });
   }
   const d = names.length;
   if (p.covariance.length !== d || p.covariance.some((row) => row.length !== d)) {
-    return fail({ code: "constraint_violated", field: `${field}.covariance`, constraint: `must be a ${d} × ${d} matrix (one row and column per parameter in mean, in the same order)` });
+    return fail({
+      code: "constraint_violated",
+      field: `${field}.covariance`,
+      constraint: `must be a ${d} × ${d} matrix (one row and column per parameter in mean, in the same order)`,
+    });
   }
   for (let i = 0; i < d; i++) {
     for (let j = 0; j < d; j++) {
-      if (Math.abs(p.covariance[i]![j]! - p.covariance[j]![i]!) > 1e-12 * Math.max(1, Math.abs(p.covariance[i]![j]!))) {
-        return fail({ code: "constraint_violated", field: `${field}.covariance[${i}][${j}]`, constraint: "the covariance matrix must be symmetric" });
+      if (
+        Math.abs(p.covariance[i]![j]! - p.covariance[j]![i]!) >
+        1e-12 * Math.max(1, Math.abs(p.covariance[i]![j]!))
+      ) {
+        return fail({
+          code: "constraint_violated",
+          field: `${field}.covariance[${i}][${j}]`,
+          constraint: "the covariance matrix must be symmetric",
+        });
       }
     }
   }
   const chol = new CholeskyDecomposition(new Matrix(p.covariance));
-  if (!chol.isPositiveDefinite()) return fail({ code: "constraint_violated", field: `${field}.covariance`, constraint: "the covariance matrix must be positive definite" });
+  if (!chol.isPositiveDefinite())
+    return fail({
+      code: "constraint_violated",
+      field: `${field}.covariance`,
+      constraint: "the covariance matrix must be positive definite",
+    });
   const L = chol.lowerTriangularMatrix.to2DArray();
   // The parameter draws have their own stream (seed + 1's generator), separate from the
   // replicates' noise, so adding parameter uncertainty leaves the noise draws unchanged.
@@ -161,7 +254,13 @@ function parameterSets(p: ParameterInput, model: Model, seed: number, field: str
       const m = withParams(model, params);
       if (m.ok) built = m.value;
     }
-    if (!built) return fail({ code: "constraint_violated", field: `${field}.covariance`, constraint: "100 draws in a row fell outside the parameters' allowed ranges; check the mean and the variances" });
+    if (!built)
+      return fail({
+        code: "constraint_violated",
+        field: `${field}.covariance`,
+        constraint:
+          "100 draws in a row fell outside the parameters' allowed ranges; check the mean and the variances",
+      });
     out.push(built);
   }
   return ok(out);

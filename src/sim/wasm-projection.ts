@@ -55,7 +55,8 @@ function instance(): KernelExports | null {
       throw new Error("projection kernel: internal error");
     };
     try {
-      kernel = new WebAssembly.Instance(new WebAssembly.Module(bytes), { env: { abort } }).exports as unknown as KernelExports;
+      kernel = new WebAssembly.Instance(new WebAssembly.Module(bytes), { env: { abort } })
+        .exports as unknown as KernelExports;
     } catch {
       kernel = null;
     }
@@ -64,13 +65,23 @@ function instance(): KernelExports | null {
 }
 
 /** The rule kinds quota() in the kernel knows. */
-const RULE_KINDS_IN_KERNEL: ReadonlySet<string> = new Set(["no-harvest", "constant-catch", "constant-rate", "constant-escapement", "threshold"]);
+const RULE_KINDS_IN_KERNEL: ReadonlySet<string> = new Set([
+  "no-harvest",
+  "constant-catch",
+  "constant-rate",
+  "constant-escapement",
+  "threshold",
+]);
 
 /** True when the kernel can run this loop: a one-number state, a family and a rule kind it knows, and an engine with WebAssembly SIMD. */
 export function kernelApplies(loop: ClosedLoop): boolean {
-  return loop.layout.dimension === 1 && FAMILY_CODES[loop.model.family] !== undefined && RULE_KINDS_IN_KERNEL.has(loop.rule.kind) && instance() !== null;
+  return (
+    loop.layout.dimension === 1 &&
+    FAMILY_CODES[loop.model.family] !== undefined &&
+    RULE_KINDS_IN_KERNEL.has(loop.rule.kind) &&
+    instance() !== null
+  );
 }
-
 
 /** The four numbers the kernel reads per parameter set (see production() in the kernel). */
 function modelParams(m: Model): [number, number, number, number] {
@@ -126,7 +137,14 @@ class Layout {
  * Runs blocks [from, to) in the kernel, adding into `parts` (fresh, from simulateBlocks) and
  * taking each block's generator state from `states` in block order.
  */
-export function kernelBlocks(parts: ProjectionParts, scenario: Scenario, u: Uncertainty, rule: Rule, loops: readonly ClosedLoop[], states: Iterator<readonly number[]>): void {
+export function kernelBlocks(
+  parts: ProjectionParts,
+  scenario: Scenario,
+  u: Uncertainty,
+  rule: Rule,
+  loops: readonly ClosedLoop[],
+  states: Iterator<readonly number[]>,
+): void {
   const k = instance();
   if (!k) throw new Error("projection kernel: not compiled (check kernelApplies first)");
   const H = scenario.horizon;
@@ -239,7 +257,13 @@ export function kernelBlocks(parts: ProjectionParts, scenario: Scenario, u: Unce
   parts.catchPositiveMin.set(f64(at.cPos, H));
   // Each year's counts lie in bin 0 (the zeros) and the bins of its positive values: copy only
   // those, and zero them behind, so the histograms are left zero for the next run.
-  const copySpans = (from: Uint32Array, into: Uint32Array, range: Float64Array, positiveMin: Float64Array, years: number) => {
+  const copySpans = (
+    from: Uint32Array,
+    into: Uint32Array,
+    range: Float64Array,
+    positiveMin: Float64Array,
+    years: number,
+  ) => {
     for (let t = 0; t < years; t++) {
       const off = t * HISTOGRAM_BINS;
       into[off] = from[off]!;
@@ -251,8 +275,20 @@ export function kernelBlocks(parts: ProjectionParts, scenario: Scenario, u: Unce
       }
     }
   };
-  copySpans(u32(at.aCounts, parts.abundanceCounts.length), parts.abundanceCounts, parts.abundanceRange, parts.abundancePositiveMin, H + 1);
-  copySpans(u32(at.cCounts, parts.catchCounts.length), parts.catchCounts, parts.catchRange, parts.catchPositiveMin, H);
+  copySpans(
+    u32(at.aCounts, parts.abundanceCounts.length),
+    parts.abundanceCounts,
+    parts.abundanceRange,
+    parts.abundancePositiveMin,
+    H + 1,
+  );
+  copySpans(
+    u32(at.cCounts, parts.catchCounts.length),
+    parts.catchCounts,
+    parts.catchRange,
+    parts.catchPositiveMin,
+    H,
+  );
   countsLeftZero = layout;
   parts.belowLimitByYear.set(u32(at.below, H + 1));
   parts.recoveryByYear.set(u32(at.recovery, H + 1));

@@ -27,7 +27,11 @@ export async function startSession(): Promise<Session> {
   mkdirSync(ARTIFACTS, { recursive: true });
   const dir = mkdtempSync(join(tmpdir(), "yieldloop-e2e-"));
   const outDir = join(dir, "page");
-  await build({ configFile: fileURLToPath(new URL("../../client/vite.config.ts", import.meta.url)), build: { outDir, emptyOutDir: true }, logLevel: "warn" });
+  await build({
+    configFile: fileURLToPath(new URL("../../client/vite.config.ts", import.meta.url)),
+    build: { outDir, emptyOutDir: true },
+    logLevel: "warn",
+  });
   const rt = createRuntime({ database: join(dir, "e2e.db"), workers: 2, staticDir: outDir });
   loadDemo(rt.repo);
   const server = rt.app.listen(0, "127.0.0.1");
@@ -36,7 +40,15 @@ export async function startSession(): Promise<Session> {
   // The flags the machine notes give for headless chromium as root on a closed network.
   const browser = await chromium.launch({
     executablePath: CHROMIUM,
-    args: ["--no-sandbox", "--disable-gpu", "--disable-quic", "--no-first-run", "--disable-background-networking", "--disable-component-update", "--disable-sync"],
+    args: [
+      "--no-sandbox",
+      "--disable-gpu",
+      "--disable-quic",
+      "--no-first-run",
+      "--disable-background-networking",
+      "--disable-component-update",
+      "--disable-sync",
+    ],
   });
   return {
     url: `http://127.0.0.1:${port}/`,
@@ -53,7 +65,11 @@ export async function startSession(): Promise<Session> {
 }
 
 /** A page that records console errors (a CSP violation shows up there) and failed requests. */
-export async function newPage(s: Session, width = 1280, height = 800): Promise<{ page: Page; errors: string[] }> {
+export async function newPage(
+  s: Session,
+  width = 1280,
+  height = 800,
+): Promise<{ page: Page; errors: string[] }> {
   const context = await s.browser.newContext({ viewport: { width, height }, acceptDownloads: true });
   const page = await context.newPage();
   const errors: string[] = [];
@@ -63,4 +79,5 @@ export async function newPage(s: Session, width = 1280, height = 800): Promise<{
   return { page, errors };
 }
 
-export const shot = (page: Page, name: string, fullPage = true) => page.screenshot({ path: join(ARTIFACTS, `${name}.png`), fullPage });
+export const shot = (page: Page, name: string, fullPage = true) =>
+  page.screenshot({ path: join(ARTIFACTS, `${name}.png`), fullPage });

@@ -9,15 +9,24 @@ import { HAVE_CHROMIUM, newPage, shot, startSession, type Session } from "./brow
 // back through the same page; no external source is needed for the page itself.
 const DEMOS = [
   { name: "Tarn Vell perch", slug: "perch", years: 32, families: null, candidates: 3 },
-  { name: "Skerra island deer", slug: "deer", years: 28, families: ["beverton-holt", "ricker"], candidates: 3 },
+  {
+    name: "Skerra island deer",
+    slug: "deer",
+    years: 28,
+    families: ["beverton-holt", "ricker"],
+    candidates: 3,
+  },
 ] as const;
 
-const points = async (page: Page, chart: string) => Number(await page.getAttribute(`canvas[data-chart="${chart}"]`, "data-points"));
+const points = async (page: Page, chart: string) =>
+  Number(await page.getAttribute(`canvas[data-chart="${chart}"]`, "data-points"));
 
 if (!HAVE_CHROMIUM && process.env.CI === "true") {
   describe("browser tests", () => {
     it("need Debian's chromium under CI", () => {
-      throw new Error("CI=true but chromium was not found at /usr/bin/chromium (or YIELDLOOP_CHROMIUM): install it with apt-get install -y chromium");
+      throw new Error(
+        "CI=true but chromium was not found at /usr/bin/chromium (or YIELDLOOP_CHROMIUM): install it with apt-get install -y chromium",
+      );
     });
   });
 }
@@ -75,9 +84,13 @@ describe.skipIf(!HAVE_CHROMIUM)("the web page, end to end in chromium", { timeou
       await page.waitForFunction((old) => document.getElementById("update-time")?.dataset.ms !== old, t0);
       const ms = Number(await page.getAttribute("#update-time", "data-ms"));
       console.log(`${demo.name}: one preview update took ${ms} ms in the browser`);
-      await page.waitForFunction(() => /is .*\. Raising it/.test(document.getElementById("margin")?.textContent ?? ""));
+      await page.waitForFunction(() =>
+        /is .*\. Raising it/.test(document.getElementById("margin")?.textContent ?? ""),
+      );
       // The same rule under every fitted model, weighted by Akaike weight.
-      await page.waitForFunction(() => /of the weighted model set/.test(document.getElementById("robust")?.textContent ?? ""));
+      await page.waitForFunction(() =>
+        /of the weighted model set/.test(document.getElementById("robust")?.textContent ?? ""),
+      );
       await page.fill("#bif-count", "60");
       await page.click("#bif-run");
       await page.waitForSelector('canvas[data-chart="bifurcation"]', { timeout: 120_000 });
@@ -117,7 +130,7 @@ describe.skipIf(!HAVE_CHROMIUM)("the web page, end to end in chromium", { timeou
       expect(`${(100 * p).toFixed(p < 0.1 ? 1 : 0)}%`).toBe(risk[0]);
       const png = page.waitForEvent("download");
       await page.click('a[data-png="abundance"]');
-      expect((await (await png).suggestedFilename())).toBe("abundance.png");
+      expect(await (await png).suggestedFilename()).toBe("abundance.png");
       await shot(page, `${demo.slug}-5-report`);
       const report = await s.browser.newPage();
       await report.goto(new URL(href!, s.url).href);
@@ -141,7 +154,11 @@ describe.skipIf(!HAVE_CHROMIUM)("the web page, end to end in chromium", { timeou
     await page.fill("#u-horizon", "200");
     await page.click("#project-run");
     await page.waitForSelector(".job progress");
-    await page.waitForFunction(() => Number(document.querySelector<HTMLProgressElement>(".job progress")?.value) > 0, undefined, { timeout: 60_000 });
+    await page.waitForFunction(
+      () => Number(document.querySelector<HTMLProgressElement>(".job progress")?.value) > 0,
+      undefined,
+      { timeout: 60_000 },
+    );
     await shot(page, "cancel-1-running", false);
     await page.click('.job button:has-text("Cancel")');
     await page.waitForSelector('[role=alert]:has-text("cancelled")', { timeout: 60_000 });
@@ -160,15 +177,31 @@ describe.skipIf(!HAVE_CHROMIUM)("the web page, end to end in chromium", { timeou
     await page.click('button[data-demo="Skerra island deer"]');
     await page.waitForSelector("#series-table tbody tr");
     // Every input and select has a label.
-    const unlabelled = await page.evaluate(() => [...document.querySelectorAll("input, select")].filter((e) => !(e as HTMLInputElement).labels?.length && !e.getAttribute("aria-label") && (e as HTMLInputElement).type !== "hidden").map((e) => e.id || e.outerHTML.slice(0, 60)));
+    const unlabelled = await page.evaluate(() =>
+      [...document.querySelectorAll("input, select")]
+        .filter(
+          (e) =>
+            !(e as HTMLInputElement).labels?.length &&
+            !e.getAttribute("aria-label") &&
+            (e as HTMLInputElement).type !== "hidden",
+        )
+        .map((e) => e.id || e.outerHTML.slice(0, 60)),
+    );
     expect(unlabelled).toEqual([]);
     // Nothing wider than the window.
     expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(760);
     await shot(page, "narrow-counts");
     // A CSV with a bad cell is refused with its row and column named.
-    await page.setInputFiles("#series-file", { name: "bad.csv", mimeType: "text/csv", buffer: Buffer.from("year,count\n2000,10\n2001,many\n2002,-4\n") });
+    await page.setInputFiles("#series-file", {
+      name: "bad.csv",
+      mimeType: "text/csv",
+      buffer: Buffer.from("year,count\n2000,10\n2001,many\n2002,-4\n"),
+    });
     await page.waitForSelector("#problem-list li");
-    expect(await page.locator("#problem-list li").allTextContents()).toEqual(['row 3, column "count": "many" is not a number', 'row 4, column "count": "-4" is not a number ≥ 0']);
+    expect(await page.locator("#problem-list li").allTextContents()).toEqual([
+      'row 3, column "count": "many" is not a number',
+      'row 4, column "count": "-4" is not a number ≥ 0',
+    ]);
     await shot(page, "narrow-bad-csv");
     expect(errors.filter((e) => !/422/.test(e))).toEqual([]);
     await page.context().close();

@@ -28,10 +28,19 @@ const scenario = fc.record({
   u: fc.array(fc.double({ min: 0.3, max: 1.6, noNaN: true }), { minLength: 8, maxLength: 8 }),
 });
 
-function build(s: { family: (typeof FAMILY_IDS)[number]; ruleIndex: number; timing: "before" | "after"; T: number; L: number }) {
+function build(s: {
+  family: (typeof FAMILY_IDS)[number];
+  ruleIndex: number;
+  timing: "before" | "after";
+  T: number;
+  L: number;
+}) {
   const params: Record<string, number> = {};
   for (const p of families[s.family].params) params[p.name] = p.typical;
-  return closedLoop(model(s.family, params, s.T), rule({ ...rules[s.ruleIndex]!, timing: s.timing, surveyLag: s.L }));
+  return closedLoop(
+    model(s.family, params, s.T),
+    rule({ ...rules[s.ruleIndex]!, timing: s.timing, surveyLag: s.L }),
+  );
 }
 
 describe("Jacobian of the closed loop", () => {
@@ -61,7 +70,9 @@ describe("Jacobian of the closed loop", () => {
             const left = (base[i]! - minus[i]!) / h;
             const right = (plus[i]! - base[i]!) / h;
             if (Math.abs(left - right) > 1e-3 * Math.max(1, Math.abs(fd))) continue;
-            expect(Math.abs(J[i]![j]! - fd), `J[${i}][${j}] for ${JSON.stringify(s)}`).toBeLessThan(1e-5 * Math.max(1, Math.abs(fd)));
+            expect(Math.abs(J[i]![j]! - fd), `J[${i}][${j}] for ${JSON.stringify(s)}`).toBeLessThan(
+              1e-5 * Math.max(1, Math.abs(fd)),
+            );
           }
         }
       }),

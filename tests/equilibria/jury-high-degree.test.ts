@@ -40,12 +40,18 @@ describe("Jury test at high degree near the unit circle", () => {
   for (const degree of [20, 30, 40]) {
     const angles = Array.from({ length: degree / 2 }, (_, k) => ((k + 0.5) * Math.PI) / (degree / 2 + 1));
     it(`degree ${degree}: all roots at radius 1 − 1e-7 is stable`, () => {
-      const c = fromPairs(1, angles.map((t) => [1 - 1e-7, t]));
+      const c = fromPairs(
+        1,
+        angles.map((t) => [1 - 1e-7, t]),
+      );
       expect(unwrap(juryTest(c)).verdict).toBe("stable");
       expect(juryVerdict(c)).toBe(1);
     });
     it(`degree ${degree}: one pair at radius 1 + 1e-7 is unstable`, () => {
-      const c = fromPairs(1, angles.map((t, k) => [k === 3 ? 1 + 1e-7 : 0.99, t]));
+      const c = fromPairs(
+        1,
+        angles.map((t, k) => [k === 3 ? 1 + 1e-7 : 0.99, t]),
+      );
       expect(unwrap(juryTest(c)).verdict).toBe("unstable");
       expect(juryVerdict(c)).toBe(-1);
     });
@@ -53,7 +59,10 @@ describe("Jury test at high degree near the unit circle", () => {
 
   it("a small leading coefficient (1e-3) at degree 30 underflows the plain table but not ours", () => {
     const angles = Array.from({ length: 15 }, (_, k) => ((k + 0.5) * Math.PI) / 16);
-    const c = fromPairs(1e-3, angles.map((t) => [0.9, t]));
+    const c = fromPairs(
+      1e-3,
+      angles.map((t) => [0.9, t]),
+    );
     expect(plainVerdict(c)).toBe("underflow");
     expect(unwrap(juryTest(c)).verdict).toBe("stable");
     expect(juryVerdict(c)).toBe(1);

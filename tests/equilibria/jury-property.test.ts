@@ -11,13 +11,17 @@ import { unwrap } from "../helpers.js";
 // polynomial whose largest root modulus is not within 1e-6 of 1 (there eigenvalue rounding,
 // about 1e-12 here, could decide either way).
 
-const polynomial = fc.integer({ min: 1, max: 12 }).chain((n) =>
-  fc.tuple(
-    fc.double({ min: 0.1, max: 3, noNaN: true }),
-    fc.array(fc.double({ min: -1.5, max: 1.5, noNaN: true }), { minLength: n, maxLength: n }),
-    fc.double({ min: 0.3, max: 1.6, noNaN: true }),
-  ).map(([lead, rest, spread]) => [lead, ...rest.map((v, i) => lead * v * Math.pow(spread, i + 1))]),
-);
+const polynomial = fc
+  .integer({ min: 1, max: 12 })
+  .chain((n) =>
+    fc
+      .tuple(
+        fc.double({ min: 0.1, max: 3, noNaN: true }),
+        fc.array(fc.double({ min: -1.5, max: 1.5, noNaN: true }), { minLength: n, maxLength: n }),
+        fc.double({ min: 0.3, max: 1.6, noNaN: true }),
+      )
+      .map(([lead, rest, spread]) => [lead, ...rest.map((v, i) => lead * v * Math.pow(spread, i + 1))]),
+  );
 
 describe("Jury verdict against companion-matrix eigenvalues (ml-matrix)", () => {
   it("agree on 5,000 random polynomials of degree 1–12 away from the circle", () => {

@@ -26,7 +26,13 @@ describe("delayed growth: Levin & May (1976) stability boundary through the Jury
         expect(verdictAt(family, 1.01 * rc, T)).toBe("unstable-oscillating");
       });
       it(`${family}, T = ${T}: the stability margin in r finds r_c to 1e-7`, () => {
-        const m = unwrap(stabilityMargin(model(family, { r: 0.5 * rc, K: 1000 }, T), rule({ kind: "no-harvest" }), "model.params.r"));
+        const m = unwrap(
+          stabilityMargin(
+            model(family, { r: 0.5 * rc, K: 1000 }, T),
+            rule({ kind: "no-harvest" }),
+            "model.params.r",
+          ),
+        );
         // The boundary is where a Jury condition crosses the 1e-9 marginal band, so it sits
         // within ~1e-8 of r_c; 1e-7 leaves room for the bisection's last step.
         expectClose(m.increase.boundary!, rc, 1e-7, "boundary");
@@ -37,7 +43,9 @@ describe("delayed growth: Levin & May (1976) stability boundary through the Jury
 
   it("the delay itself has a margin: a Ricker with r = 0.8 is stable for T = 1 and loses it at T = 2", () => {
     // r_c(1) = 1 > 0.8 > r_c(2) = 0.618.
-    const m = unwrap(stabilityMargin(model("ricker", { r: 0.8, K: 1000 }, 0), rule({ kind: "no-harvest" }), "model.delay"));
+    const m = unwrap(
+      stabilityMargin(model("ricker", { r: 0.8, K: 1000 }, 0), rule({ kind: "no-harvest" }), "model.delay"),
+    );
     expect(m.increase.boundary).toBe(2);
     expect(m.increase.margin).toBe(2);
     expect(m.increase.kind).toBe("unstable-oscillating");

@@ -3,8 +3,12 @@ import { closedLoop } from "../../src/policy/closed-loop.js";
 import { longRun, longRunBatch } from "../../src/equilibria/long-run.js";
 import { model, rule } from "../helpers.js";
 
-const loopOf = (family: string, params: Record<string, number>, spec: object = { kind: "no-harvest" }, delay = 0) =>
-  closedLoop(model(family, params, delay), rule(spec as never));
+const loopOf = (
+  family: string,
+  params: Record<string, number>,
+  spec: object = { kind: "no-harvest" },
+  delay = 0,
+) => closedLoop(model(family, params, delay), rule(spec as never));
 
 describe("long-run regimes by iteration", () => {
   it("Ricker r = 3 is irregular with a positive Lyapunov exponent (chaos, May 1976)", () => {
@@ -55,7 +59,9 @@ describe("long-run regimes by iteration", () => {
   });
 
   it("the batched orbit gives the same result as longRun, cell by cell", () => {
-    const loops = [0.3, 1.2, 1.9, 2.1, 2.6, 2.9, 3.5].flatMap((r) => [0, 0.2, 0.6].map((h) => loopOf("ricker", { r, K: 1000 }, { kind: "constant-rate", rate: h })));
+    const loops = [0.3, 1.2, 1.9, 2.1, 2.6, 2.9, 3.5].flatMap((r) =>
+      [0, 0.2, 0.6].map((h) => loopOf("ricker", { r, K: 1000 }, { kind: "constant-rate", rate: h })),
+    );
     const start = Float64Array.of(500);
     const batch = longRunBatch(loops, start);
     loops.forEach((l, i) => expect(batch[i]).toEqual(longRun(l, start)));

@@ -20,7 +20,10 @@ function period(family: string, r: number): number | null {
 describe("May (1976): the route to cycles", () => {
   for (const family of ["discrete-logistic", "ricker"]) {
     it(`${family}: K is stable (damped oscillation) at r = 1.99 and unstable by period doubling at r = 2.01`, () => {
-      const at = (r: number) => analyseStability(closedLoop(model(family, { r, K: 1000 }), rule({ kind: "no-harvest" }))).equilibria.at(-1)!.verdict.kind;
+      const at = (r: number) =>
+        analyseStability(
+          closedLoop(model(family, { r, K: 1000 }), rule({ kind: "no-harvest" })),
+        ).equilibria.at(-1)!.verdict.kind;
       expect(at(1.99)).toBe("stable-oscillating");
       expect(at(2.01)).toBe("unstable-period-doubling");
     });
@@ -38,7 +41,12 @@ describe("May (1976): the route to cycles", () => {
 
   it("the bifurcation diagram shows 1, 2 and 4 points and the Jury boundary at r = 2", () => {
     const d = unwrap(
-      bifurcationDiagram(model("ricker", { r: 1, K: 1000 }), rule({ kind: "no-harvest" }), { path: "model.params.r", from: 1.5, to: 2.6, count: 11 }, { burnIn: 5000 }),
+      bifurcationDiagram(
+        model("ricker", { r: 1, K: 1000 }),
+        rule({ kind: "no-harvest" }),
+        { path: "model.params.r", from: 1.5, to: 2.6, count: 11 },
+        { burnIn: 5000 },
+      ),
     );
     expect(d.points[0]!.length).toBe(1); // r = 1.5
     expect(d.points[6]!.length).toBe(2); // r = 2.16

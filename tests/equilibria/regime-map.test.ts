@@ -19,12 +19,21 @@ const request = {
 };
 
 describe("regime map", () => {
-  const map = unwrap(regimeMap(model("ricker", { r: 1, K: 1000 }), rule({ kind: "constant-rate", rate: 0.1 }), request.x, request.y, { start: [500] }));
+  const map = unwrap(
+    regimeMap(
+      model("ricker", { r: 1, K: 1000 }),
+      rule({ kind: "constant-rate", rate: 0.1 }),
+      request.x,
+      request.y,
+      { start: [500] },
+    ),
+  );
 
   it("the Jury boundary lies on the period-doubling curve r_c(h)", () => {
     const pd = map.boundary.filter((b) => b.from === 1 && b.to === -1);
     expect(pd.length).toBeGreaterThanOrEqual(5); // columns with 1.72 < r < 2 cross the curve
-    for (const b of pd) expect(Math.abs(b.x - rc(b.y)), `boundary point ${JSON.stringify(b)}`).toBeLessThan(1e-6);
+    for (const b of pd)
+      expect(Math.abs(b.x - rc(b.y)), `boundary point ${JSON.stringify(b)}`).toBeLessThan(1e-6);
   });
 
   it("cells left of r_c(h) settle on the equilibrium and cells just right of it cycle", () => {
@@ -32,7 +41,8 @@ describe("regime map", () => {
     map.y.values.forEach((h, j) => {
       map.x.values.forEach((r, i) => {
         const regime = REGIMES[map.regimes[j * nx + i]!];
-        if (r < rc(h) - 0.05 && r > Math.log(1 + h) + 0.05) expect(regime, `r = ${r}, h = ${h}`).toBe("equilibrium");
+        if (r < rc(h) - 0.05 && r > Math.log(1 + h) + 0.05)
+          expect(regime, `r = ${r}, h = ${h}`).toBe("equilibrium");
         if (r > rc(h) + 0.05 && r < rc(h) + 0.3) expect(regime, `r = ${r}, h = ${h}`).toBe("cycle");
       });
     });

@@ -11,7 +11,9 @@ import { expectClose, model, rule, unwrap } from "../helpers.js";
 describe("Schaefer constant catch: fold and period doubling", () => {
   const K = 1000;
   it("r = 0.6, Q = 100: lower equilibrium unstable by a fold, upper stable (monotone)", () => {
-    const a = analyseStability(closedLoop(model("discrete-logistic", { r: 0.6, K }), rule({ kind: "constant-catch", quota: 100 })));
+    const a = analyseStability(
+      closedLoop(model("discrete-logistic", { r: 0.6, K }), rule({ kind: "constant-catch", quota: 100 })),
+    );
     const s = Math.sqrt(1 - (4 * 100) / (0.6 * K));
     const pos = a.equilibria.filter((e) => e.equilibrium.abundance > 0);
     expect(pos.length).toBe(2);
@@ -26,10 +28,19 @@ describe("Schaefer constant catch: fold and period doubling", () => {
 
   it("r = 2.5: the upper equilibrium is stable while r·s < 2 (Q = 230) and period-doubles when r·s > 2 (Q = 220)", () => {
     // r·s = 2 at s = 0.8, i.e. Q = 0.09·r·K = 225.
-    const upper = (Q: number) => analyseStability(closedLoop(model("discrete-logistic", { r: 2.5, K }), rule({ kind: "constant-catch", quota: Q }))).equilibria.at(-1)!;
+    const upper = (Q: number) =>
+      analyseStability(
+        closedLoop(model("discrete-logistic", { r: 2.5, K }), rule({ kind: "constant-catch", quota: Q })),
+      ).equilibria.at(-1)!;
     expect(upper(230).verdict.kind).toBe("stable-oscillating");
     expect(upper(220).verdict.kind).toBe("unstable-period-doubling");
-    const m = unwrap(stabilityMargin(model("discrete-logistic", { r: 2.5, K }), rule({ kind: "constant-catch", quota: 230 }), "rule.quota"));
+    const m = unwrap(
+      stabilityMargin(
+        model("discrete-logistic", { r: 2.5, K }),
+        rule({ kind: "constant-catch", quota: 230 }),
+        "rule.quota",
+      ),
+    );
     expectClose(m.decrease.boundary!, 225, 1e-7, "quota where r·s = 2");
     expect(m.decrease.kind).toBe("unstable-period-doubling");
     // Raising the quota, the equilibrium vanishes at MSY = rK/4 = 625 (the fold).
@@ -38,14 +49,18 @@ describe("Schaefer constant catch: fold and period doubling", () => {
   });
 
   it("a quota above the largest surplus leaves no positive equilibrium: the stock collapses", () => {
-    const a = analyseStability(closedLoop(model("discrete-logistic", { r: 0.6, K }), rule({ kind: "constant-catch", quota: 151 })));
+    const a = analyseStability(
+      closedLoop(model("discrete-logistic", { r: 0.6, K }), rule({ kind: "constant-catch", quota: 151 })),
+    );
     expect(a.noPositiveEquilibrium).toBe(true);
     expect(a.operating).toBeNull();
     expect(a.equilibria.map((e) => e.equilibrium.abundance)).toEqual([0]);
   });
 
   it("a quota exactly at MSY = rK/4 gives one marginal equilibrium at K/2", () => {
-    const a = analyseStability(closedLoop(model("discrete-logistic", { r: 0.6, K }), rule({ kind: "constant-catch", quota: 150 })));
+    const a = analyseStability(
+      closedLoop(model("discrete-logistic", { r: 0.6, K }), rule({ kind: "constant-catch", quota: 150 })),
+    );
     const pos = a.equilibria.filter((e) => e.equilibrium.abundance > 0);
     expect(pos.length).toBe(1);
     expectClose(pos[0]!.equilibrium.abundance, 500, 1e-6, "N at MSY");

@@ -9,10 +9,27 @@ import { unwrap } from "../helpers.js";
 // state-vector step. An identity of the closed-loop map; no external source.
 describe("equilibrium residual", () => {
   const cases = [
-    { model: { family: "ricker", params: { r: 1.5, K: 1000 }, delay: 2 }, rule: { kind: "threshold", lowerTrigger: 200, upperTrigger: 500, maxRate: 0.3, surveyLag: 1 } },
-    { model: { family: "beverton-holt", params: { R0: 3, K: 800 }, delay: 1 }, rule: { kind: "constant-catch", quota: 90, timing: "before", quotaChange: { maxIncrease: 0.1, maxDecrease: 0.2 } } },
-    { model: { family: "allee-ricker", params: { r: 0.8, K: 1000, A: 150 }, delay: 0 }, rule: { kind: "constant-escapement", escapement: 300, surveyLag: 2, stocking: 20 } },
-    { model: { family: "theta-logistic", params: { r: 1.1, K: 500, theta: 2 }, delay: 3 }, rule: { kind: "constant-rate", rate: 0.2, timing: "before", surveyLag: 1 } },
+    {
+      model: { family: "ricker", params: { r: 1.5, K: 1000 }, delay: 2 },
+      rule: { kind: "threshold", lowerTrigger: 200, upperTrigger: 500, maxRate: 0.3, surveyLag: 1 },
+    },
+    {
+      model: { family: "beverton-holt", params: { R0: 3, K: 800 }, delay: 1 },
+      rule: {
+        kind: "constant-catch",
+        quota: 90,
+        timing: "before",
+        quotaChange: { maxIncrease: 0.1, maxDecrease: 0.2 },
+      },
+    },
+    {
+      model: { family: "allee-ricker", params: { r: 0.8, K: 1000, A: 150 }, delay: 0 },
+      rule: { kind: "constant-escapement", escapement: 300, surveyLag: 2, stocking: 20 },
+    },
+    {
+      model: { family: "theta-logistic", params: { r: 1.1, K: 500, theta: 2 }, delay: 3 },
+      rule: { kind: "constant-rate", rate: 0.2, timing: "before", surveyLag: 1 },
+    },
   ];
   for (const c of cases) {
     it(`${c.model.family}, delay ${c.model.delay}, ${c.rule.kind}: the one-number shortcut equals the full step to the last bit`, () => {

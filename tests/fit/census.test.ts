@@ -11,7 +11,9 @@ import { expectClose, unwrap } from "../helpers.js";
 // on the same annual discrete-logistic observation-error model,
 // tests/fixtures/census/fit_census_scipy.py, output in census-scipy.json.
 describe("US census 1790–1940: discrete logistic against scipy.optimize", () => {
-  const series = unwrap(parseSeriesCsv(readFileSync(new URL("../fixtures/census/us-census.csv", import.meta.url), "utf8")));
+  const series = unwrap(
+    parseSeriesCsv(readFileSync(new URL("../fixtures/census/us-census.csv", import.meta.url), "utf8")),
+  );
   const fit = unwrap(fitSeries(series, { family: "discrete-logistic" }));
 
   it("reaches the same estimates to 4 significant digits", () => {
@@ -42,7 +44,12 @@ describe("US census 1790–1940: discrete logistic against scipy.optimize", () =
       expect(ci.lower).toBeLessThan(est);
       expect(ci.upper).toBeGreaterThan(est);
       // Well-determined here, so the width is close to the Wald width 2·1.96·se (within 5%).
-      expectClose((ci.upper - ci.lower) / (2 * 1.96 * reference.standardErrors[name]), 1, 0.05, `width(${name})`);
+      expectClose(
+        (ci.upper - ci.lower) / (2 * 1.96 * reference.standardErrors[name]),
+        1,
+        0.05,
+        `width(${name})`,
+      );
     }
   });
 });

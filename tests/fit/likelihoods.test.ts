@@ -23,12 +23,21 @@ describe("process-error fit", () => {
   // least-squares line (closed form, computed here independently).
   it("equals the Ricker linear regression", () => {
     const y = [120, 260, 480, 700, 820, 760, 840, 800, 900, 780, 860, 830, 800, 870];
-    const series: Series = { years: y.map((_, i) => i), count: y, catch: y.map(() => 0), stocking: y.map(() => 0), cv: y.map(() => null), indices: {}, warnings: [] };
+    const series: Series = {
+      years: y.map((_, i) => i),
+      count: y,
+      catch: y.map(() => 0),
+      stocking: y.map(() => 0),
+      cv: y.map(() => null),
+      indices: {},
+      warnings: [],
+    };
     const xs = y.slice(0, -1);
     const zs = y.slice(1).map((v, i) => Math.log(v / y[i]!));
     const mx = xs.reduce((a, b) => a + b) / xs.length;
     const mz = zs.reduce((a, b) => a + b) / zs.length;
-    const slope = xs.reduce((a, x, i) => a + (x - mx) * (zs[i]! - mz), 0) / xs.reduce((a, x) => a + (x - mx) ** 2, 0);
+    const slope =
+      xs.reduce((a, x, i) => a + (x - mx) * (zs[i]! - mz), 0) / xs.reduce((a, x) => a + (x - mx) ** 2, 0);
     const r = mz - slope * mx;
     const fit = unwrap(fitSeries(series, { family: "ricker", method: "process" }));
     expectClose(fit.estimates.r!, r, 1e-6, "r");
@@ -39,7 +48,15 @@ describe("process-error fit", () => {
 describe("count likelihoods", () => {
   it("Poisson and negative binomial fit raw counts with zeros, and lognormal refuses zeros by name", () => {
     const y = [40, 55, 71, 0, 90, 103, 96, 110, 0, 120, 115, 118, 124, 119];
-    const series: Series = { years: y.map((_, i) => 2000 + i), count: y, catch: y.map(() => 0), stocking: y.map(() => 0), cv: y.map(() => null), indices: {}, warnings: [] };
+    const series: Series = {
+      years: y.map((_, i) => 2000 + i),
+      count: y,
+      catch: y.map(() => 0),
+      stocking: y.map(() => 0),
+      cv: y.map(() => null),
+      indices: {},
+      warnings: [],
+    };
     for (const likelihood of ["poisson", "negative-binomial"] as const) {
       const fit = unwrap(fitSeries(series, { family: "beverton-holt", likelihood }));
       expect(fit.convergence.converged).toBe(true);
@@ -50,7 +67,11 @@ describe("count likelihoods", () => {
   });
 
   it("the demo deer herd (invented, generated with R0 = 1.6, K = 2,400) is recovered within 10%", () => {
-    const s = unwrap(parseSeriesCsv(readFileSync(new URL("../../data-demo/skerra-deer/series.csv", import.meta.url), "utf8")));
+    const s = unwrap(
+      parseSeriesCsv(
+        readFileSync(new URL("../../data-demo/skerra-deer/series.csv", import.meta.url), "utf8"),
+      ),
+    );
     const fit = unwrap(fitSeries(s, { family: "beverton-holt", likelihood: "poisson", timing: "before" }));
     expect(Math.abs(fit.estimates.K! / 2400 - 1)).toBeLessThan(0.1);
     expect(Math.abs(fit.estimates.R0! / 1.6 - 1)).toBeLessThan(0.1);
@@ -58,7 +79,18 @@ describe("count likelihoods", () => {
   });
 
   it("a series shorter than the parameters need is refused", () => {
-    const series: Series = { years: [0, 1, 2], count: [1, 2, 3], catch: [0, 0, 0], stocking: [0, 0, 0], cv: [null, null, null], indices: {}, warnings: [] };
-    expect(fitSeries(series, { family: "ricker" })).toMatchObject({ ok: false, issue: { code: "series_too_short" } });
+    const series: Series = {
+      years: [0, 1, 2],
+      count: [1, 2, 3],
+      catch: [0, 0, 0],
+      stocking: [0, 0, 0],
+      cv: [null, null, null],
+      indices: {},
+      warnings: [],
+    };
+    expect(fitSeries(series, { family: "ricker" })).toMatchObject({
+      ok: false,
+      issue: { code: "series_too_short" },
+    });
   });
 });

@@ -69,7 +69,9 @@ for (const [family, truth] of [
         expect(covered[name], `${name}: ${covered[name]} of ${TRIALS}`).toBeGreaterThanOrEqual(34);
         // An interval open at both ends covers trivially; most must be bounded for the
         // coverage to mean anything.
-        expect(unbounded[name], `${name}: ${unbounded[name]} of ${TRIALS} unbounded`).toBeLessThanOrEqual(TRIALS / 4);
+        expect(unbounded[name], `${name}: ${unbounded[name]} of ${TRIALS} unbounded`).toBeLessThanOrEqual(
+          TRIALS / 4,
+        );
       }
     }, 120_000);
   });

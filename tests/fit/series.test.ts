@@ -9,7 +9,11 @@ import { unwrap } from "../helpers.js";
 
 describe("series CSV", () => {
   it("reads the demo lake series: 32 years, two lost surveys, catches, stocking and cv", () => {
-    const s = unwrap(parseSeriesCsv(readFileSync(new URL("../../data-demo/tarnvell-perch/series.csv", import.meta.url), "utf8")));
+    const s = unwrap(
+      parseSeriesCsv(
+        readFileSync(new URL("../../data-demo/tarnvell-perch/series.csv", import.meta.url), "utf8"),
+      ),
+    );
     expect(s.years.length).toBe(32);
     expect(s.count.filter((c) => c === null).length).toBe(2);
     expect(s.stocking.filter((a) => a > 0).length).toBe(10);
@@ -21,7 +25,11 @@ describe("series CSV", () => {
     expect(s.years).toEqual([2000, 2001, 2002, 2003]);
     expect(s.count).toEqual([11, 12, null, 10]);
     expect(s.catch).toEqual([2, 0, 0, 1]);
-    expect(s.warnings).toEqual([{ code: "years_sorted" }, { code: "years_missing", years: [2002] }, { code: "catch_not_recorded", years: [2001, 2002] }]);
+    expect(s.warnings).toEqual([
+      { code: "years_sorted" },
+      { code: "years_missing", years: [2002] },
+      { code: "catch_not_recorded", years: [2001, 2002] },
+    ]);
   });
 
   it("keeps further index columns and accepts 'index' for the count", () => {
@@ -31,14 +39,42 @@ describe("series CSV", () => {
   });
 
   const cases: [string, string, object][] = [
-    ["a non-numeric cell", "year,count\n2000,12\n2001,lots\n", { code: "csv_cell", row: 3, column: "count", value: "lots", expected: "a number" }],
-    ["a negative count", "year,count\n2000,-4\n", { code: "csv_cell", row: 2, column: "count", value: "-4", expected: "a number ≥ 0" }],
-    ["a fractional year", "year,count\n2000.5,4\n", { code: "csv_cell", row: 2, column: "year", value: "2000.5", expected: "a whole year" }],
-    ["a duplicate year", "year,count\n2000,4\n2001,5\n2000,6\n", { code: "csv_duplicate_year", row: 4, column: "year", year: 2000, firstRow: 2 }],
+    [
+      "a non-numeric cell",
+      "year,count\n2000,12\n2001,lots\n",
+      { code: "csv_cell", row: 3, column: "count", value: "lots", expected: "a number" },
+    ],
+    [
+      "a negative count",
+      "year,count\n2000,-4\n",
+      { code: "csv_cell", row: 2, column: "count", value: "-4", expected: "a number ≥ 0" },
+    ],
+    [
+      "a fractional year",
+      "year,count\n2000.5,4\n",
+      { code: "csv_cell", row: 2, column: "year", value: "2000.5", expected: "a whole year" },
+    ],
+    [
+      "a duplicate year",
+      "year,count\n2000,4\n2001,5\n2000,6\n",
+      { code: "csv_duplicate_year", row: 4, column: "year", year: 2000, firstRow: 2 },
+    ],
     ["no count column", "year,catch\n2000,4\n", { code: "csv_missing_column", column: "count" }],
-    ["all counts missing", "year,count,catch\n2000,,4\n2001,,3\n", { code: "csv_no_observations", column: "count" }],
-    ["a catch no stock could yield", "year,count,catch\n2000,10,5\n2001,12,5000\n", { code: "csv_implausible_catch", row: 3, column: "catch", value: 5000, limit: 1200 }],
-    ["a zero cv", "year,count,cv\n2000,10,0\n", { code: "csv_cell", row: 2, column: "cv", expected: "a number > 0" }],
+    [
+      "all counts missing",
+      "year,count,catch\n2000,,4\n2001,,3\n",
+      { code: "csv_no_observations", column: "count" },
+    ],
+    [
+      "a catch no stock could yield",
+      "year,count,catch\n2000,10,5\n2001,12,5000\n",
+      { code: "csv_implausible_catch", row: 3, column: "catch", value: 5000, limit: 1200 },
+    ],
+    [
+      "a zero cv",
+      "year,count,cv\n2000,10,0\n",
+      { code: "csv_cell", row: 2, column: "cv", expected: "a number > 0" },
+    ],
     ["a ragged row", "year,count\n2000,10\n2001,11,7\n", { code: "csv_malformed", row: 3 }],
   ];
   for (const [what, text, issue] of cases) {
@@ -68,6 +104,8 @@ describe("every problem of a CSV, row by row", () => {
   });
   it("is empty for a valid CSV and holds the one problem that stops reading", () => {
     expect(seriesProblems("year,count\n2000,1\n2001,2\n")).toEqual([]);
-    expect(seriesProblems("year,total\n2000,1\n")).toMatchObject([{ code: "csv_missing_column", column: "count" }]);
+    expect(seriesProblems("year,total\n2000,1\n")).toMatchObject([
+      { code: "csv_missing_column", column: "count" },
+    ]);
   });
 });

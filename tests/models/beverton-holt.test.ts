@@ -17,7 +17,11 @@ describe("Beverton–Holt (Beverton & Holt 1957)", () => {
   ];
   for (const { R0, K, N0 } of cases) {
     it(`projection equals the closed form for R0 = ${R0}, K = ${K}, N0 = ${N0}`, () => {
-      const p = projectLoop(closedLoop(model("beverton-holt", { R0, K }), rule({ kind: "no-harvest" })), [N0], 60);
+      const p = projectLoop(
+        closedLoop(model("beverton-holt", { R0, K }), rule({ kind: "no-harvest" })),
+        [N0],
+        60,
+      );
       expect(p.status).toBe("completed");
       for (let t = 0; t <= 60; t++) {
         const exact = (K * N0) / (N0 + (K - N0) * Math.pow(R0, -t));

@@ -28,10 +28,18 @@ function paramsArb(id: (typeof FAMILY_IDS)[number]): fc.Arbitrary<Params> {
     case "hassell":
       return fc.record({ R0, K, beta: fc.double({ min: 0.3, max: 10, noNaN: true }) });
     case "theta-logistic":
-      return fc.record({ r: fc.double({ min: 0.05, max: 1.5, noNaN: true }), K, theta: fc.double({ min: 0.3, max: 5, noNaN: true }) });
+      return fc.record({
+        r: fc.double({ min: 0.05, max: 1.5, noNaN: true }),
+        K,
+        theta: fc.double({ min: 0.3, max: 5, noNaN: true }),
+      });
     case "allee-ricker":
       return fc
-        .record({ r: fc.double({ min: 0.05, max: 3, noNaN: true }), K, frac: fc.double({ min: 0.05, max: 0.8, noNaN: true }) })
+        .record({
+          r: fc.double({ min: 0.05, max: 3, noNaN: true }),
+          K,
+          frac: fc.double({ min: 0.05, max: 0.8, noNaN: true }),
+        })
         .map(({ r, K, frac }) => ({ r, K, A: frac * K }));
   }
 }
@@ -88,7 +96,10 @@ for (const id of FAMILY_IDS) {
             return;
           }
           const m = unwrap(result);
-          const lower = fam.equilibria(p).filter((e) => e < p.K!).reduce((a, b) => Math.max(a, b), 0);
+          const lower = fam
+            .equilibria(p)
+            .filter((e) => e < p.K!)
+            .reduce((a, b) => Math.max(a, b), 0);
           const num = maximiseOnInterval((x) => production(fam, x, p) - x, lower, p.K!, 2048);
           // The maximum value is accurate to ~EPS; its location only to ~√EPS (flat peak).
           expectClose(m.msy / p.K!, num.value / p.K!, 1e-9, `${id} MSY`);

@@ -37,7 +37,10 @@ describe("stock–recruitment conversions", () => {
 
   it("a ≤ 1 (no positive equilibrium), b ≤ 0 and non-finite values are refused with the field named", () => {
     const r1 = rickerFromStockRecruitment({ a: 0.9, b: 0.01 });
-    expect(r1).toEqual({ ok: false, issue: { code: "param_out_of_range", field: "a", value: 0.9, min: 1, minInclusive: false } });
+    expect(r1).toEqual({
+      ok: false,
+      issue: { code: "param_out_of_range", field: "a", value: 0.9, min: 1, minInclusive: false },
+    });
     const r2 = bevertonHoltFromStockRecruitment({ a: 2, b: -1 });
     expect(r2.ok || r2.issue).toMatchObject({ code: "param_out_of_range", field: "b", value: -1 });
     const r3 = rickerFromStockRecruitment({ a: Number.NaN, b: 1 });

@@ -73,7 +73,10 @@ describe("closed loop G = F − H + S", () => {
     expect(capQuota(50, 100, 0.15, 0.1)).toBeCloseTo(90, 12);
     expect(capQuota(100, 100, 0.15, 0.1)).toBe(100);
     expect(capQuota(80, 0, 0.15, 0.1)).toBe(80);
-    const loop = closedLoop(ricker, rule({ kind: "constant-rate", rate: 0.5, quotaChange: { maxIncrease: 0.1, maxDecrease: 0.1 } }));
+    const loop = closedLoop(
+      ricker,
+      rule({ kind: "constant-rate", rate: 0.5, quotaChange: { maxIncrease: 0.1, maxDecrease: 0.1 } }),
+    );
     const p = projectLoop(loop, [200], 30);
     for (let t = 1; t < 30; t++) {
       const ratio = p.quota[t]! / p.quota[t - 1]!;
@@ -84,7 +87,15 @@ describe("closed loop G = F − H + S", () => {
 
   it("stepping in place and into a separate array give identical states", () => {
     const m = model("hassell", { R0: 6, K: 800, beta: 3 }, 2);
-    const r = rule({ kind: "threshold", lowerTrigger: 100, upperTrigger: 400, maxRate: 0.4, surveyLag: 3, timing: "before", quotaChange: { maxIncrease: 0.2, maxDecrease: 0.2 } });
+    const r = rule({
+      kind: "threshold",
+      lowerTrigger: 100,
+      upperTrigger: 400,
+      maxRate: 0.4,
+      surveyLag: 3,
+      timing: "before",
+      quotaChange: { maxIncrease: 0.2, maxDecrease: 0.2 },
+    });
     const loop = closedLoop(m, r);
     const a = loop.initialState([300, 350, 420, 500]);
     const b = Float64Array.from(a);
@@ -112,7 +123,11 @@ describe("the one-number shortcut next()", () => {
       const params: Record<string, number> = {};
       for (const p of fam.params) params[p.name] = p.typical;
       for (const timing of ["before", "after"] as const) {
-        for (const spec of [{ kind: "constant-rate", rate: 0.3 }, { kind: "constant-catch", quota: 150 }, { kind: "threshold", lowerTrigger: 100, upperTrigger: 700, maxRate: 0.4 }] as const) {
+        for (const spec of [
+          { kind: "constant-rate", rate: 0.3 },
+          { kind: "constant-catch", quota: 150 },
+          { kind: "threshold", lowerTrigger: 100, upperTrigger: 700, maxRate: 0.4 },
+        ] as const) {
           const loop = closedLoop(model(id, params), rule({ ...spec, timing, stocking: 3 }));
           for (const n of [0, 1e-3, 50, 420, 999, 2500]) {
             const x = loop.initialState([n]);

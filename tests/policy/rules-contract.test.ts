@@ -53,7 +53,12 @@ for (const [name, spec] of Object.entries(RULES)) {
             const params: Record<string, number> = {};
             for (const p of fam.params) params[p.name] = p.typical;
             if (family === "discrete-logistic" || family === "theta-logistic") params.r = 2.5;
-            const r = rule({ ...spec, timing, surveyLag, ...(capped ? { quotaChange: { maxIncrease: 0.15, maxDecrease: 0.15 } } : {}) });
+            const r = rule({
+              ...spec,
+              timing,
+              surveyLag,
+              ...(capped ? { quotaChange: { maxIncrease: 0.15, maxDecrease: 0.15 } } : {}),
+            });
             const loop = closedLoop(model(family, params, delay), r);
             const p = projectLoop(loop, [start], 200);
             const broken: string[] = [];
@@ -61,12 +66,16 @@ for (const [name, spec] of Object.entries(RULES)) {
               const n = p.abundance[t]!;
               const c = p.catch[t]!;
               const next = p.abundance[t + 1]!;
-              if (!(c >= 0) || c > p.quota[t]! + 1e-9) broken.push(`year ${t}: catch ${c} vs quota ${p.quota[t]}`);
+              if (!(c >= 0) || c > p.quota[t]! + 1e-9)
+                broken.push(`year ${t}: catch ${c} vs quota ${p.quota[t]}`);
               // Before reproduction the catch comes out of N[t]; after, out of N[t]·g.
               if (timing === "before" && c > n) broken.push(`year ${t}: catch ${c} > stock ${n}`);
               if (!(next >= 0) || !Number.isFinite(next)) broken.push(`year ${t + 1}: abundance ${next}`);
             }
-            expect(broken, `${family} ${timing} L=${surveyLag} T=${delay} capped=${capped} start=${start}`).toEqual([]);
+            expect(
+              broken,
+              `${family} ${timing} L=${surveyLag} T=${delay} capped=${capped} start=${start}`,
+            ).toEqual([]);
           },
         ),
         { numRuns: 300, seed: 17 },

@@ -9,7 +9,11 @@ import { describe, expect, it } from "vitest";
 // and exit codes. No external source: these are the program's own contract.
 const bin = fileURLToPath(new URL("../../bin/yieldloop.mjs", import.meta.url));
 const demo = (p: string) => fileURLToPath(new URL(`../../data-demo/${p}`, import.meta.url));
-const run = (...args: string[]) => spawnSync(process.execPath, [bin, ...args], { encoding: "utf8", env: { ...process.env, YIELDLOOP_TOKEN: "" } });
+const run = (...args: string[]) =>
+  spawnSync(process.execPath, [bin, ...args], {
+    encoding: "utf8",
+    env: { ...process.env, YIELDLOOP_TOKEN: "" },
+  });
 const tmp = mkdtempSync(join(tmpdir(), "yieldloop-cli-"));
 
 // Each case starts one or more real processes, so each gets 60 s on a loaded machine.
@@ -23,7 +27,17 @@ describe("yieldloop command line", { timeout: 60_000 }, () => {
   });
   it("project --json --out: JSON on stdout, the per-year table as RFC 4180 CSV", () => {
     const out = join(tmp, "projection.csv");
-    const r = run("project", demo("scenarios/skerra-deer.json"), "--replicates", "200", "--workers", "1", "--json", "--out", out);
+    const r = run(
+      "project",
+      demo("scenarios/skerra-deer.json"),
+      "--replicates",
+      "200",
+      "--workers",
+      "1",
+      "--json",
+      "--out",
+      out,
+    );
     expect(r.status).toBe(0);
     const p = JSON.parse(r.stdout);
     expect(p.replicates).toBe(200);
@@ -33,7 +47,16 @@ describe("yieldloop command line", { timeout: 60_000 }, () => {
     expect(lines[1]!.startsWith("2028,780,")).toBe(true);
   });
   it("project as text: years as written (2028, not 2,028), quantities with separators", () => {
-    const r = run("project", demo("scenarios/skerra-deer.json"), "--replicates", "200", "--workers", "1", "--seed", "2028");
+    const r = run(
+      "project",
+      demo("scenarios/skerra-deer.json"),
+      "--replicates",
+      "200",
+      "--workers",
+      "1",
+      "--seed",
+      "2028",
+    );
     expect(r.status).toBe(0);
     expect(r.stdout).toMatch(/^seed +2028 /m);
     expect(r.stdout).toMatch(/^2028 +780 /m);
@@ -42,20 +65,51 @@ describe("yieldloop command line", { timeout: 60_000 }, () => {
     expect(r.stdout).toMatch(/\d,\d{3}/); // abundances above 1,000 keep their separator
   });
   it("compare: the scenario's own rule and its alternatives, one row each", () => {
-    const r = run("compare", demo("scenarios/skerra-deer.json"), "--replicates", "200", "--workers", "1", "--json");
+    const r = run(
+      "compare",
+      demo("scenarios/skerra-deer.json"),
+      "--replicates",
+      "200",
+      "--workers",
+      "1",
+      "--json",
+    );
     expect(r.status).toBe(0);
     const rows = JSON.parse(r.stdout);
     expect(rows).toHaveLength(4);
     expect(rows[3].verdict).toBe("collapse"); // 420 a year is above the herd's largest surplus
   });
   it("fit: a ranking of the models", () => {
-    const r = run("fit", demo("skerra-deer/series.csv"), "--families", "beverton-holt,ricker", "--delays", "0", "--likelihood", "poisson", "--timing", "before", "--json");
+    const r = run(
+      "fit",
+      demo("skerra-deer/series.csv"),
+      "--families",
+      "beverton-holt,ricker",
+      "--delays",
+      "0",
+      "--likelihood",
+      "poisson",
+      "--timing",
+      "before",
+      "--json",
+    );
     expect(r.status).toBe(0);
     expect(JSON.parse(r.stdout).fits).toHaveLength(2);
   });
   it("map: cells to CSV", () => {
     const out = join(tmp, "map.csv");
-    const r = run("map", demo("scenarios/skerra-deer.json"), "--x", "model.params.R0:1.2:3:6", "--y", "rule.quota:0:500:5", "--workers", "1", "--out", out);
+    const r = run(
+      "map",
+      demo("scenarios/skerra-deer.json"),
+      "--x",
+      "model.params.R0:1.2:3:6",
+      "--y",
+      "rule.quota:0:500:5",
+      "--workers",
+      "1",
+      "--out",
+      out,
+    );
     expect(r.status).toBe(0);
     expect(readFileSync(out, "utf8").split("\r\n")).toHaveLength(1 + 30 + 1);
   });

@@ -13,7 +13,11 @@ import { describe, expect, it } from "vitest";
 describe("a process killed with SIGKILL during writes", () => {
   it("loses no committed data and leaves no partial rows", async () => {
     const file = join(mkdtempSync(join(tmpdir(), "yieldloop-crash-")), "store.db");
-    const child = spawn(process.execPath, ["--import", "tsx", fileURLToPath(new URL("./crash-writer.ts", import.meta.url)), file], { stdio: ["ignore", "pipe", "inherit"] });
+    const child = spawn(
+      process.execPath,
+      ["--import", "tsx", fileURLToPath(new URL("./crash-writer.ts", import.meta.url)), file],
+      { stdio: ["ignore", "pipe", "inherit"] },
+    );
     const committed: string[][] = [];
     let buffer = "";
     await new Promise<void>((resolve, reject) => {
@@ -36,19 +40,45 @@ describe("a process killed with SIGKILL during writes", () => {
     expect(db.pragma("integrity_check", { simple: true })).toBe("ok");
     // Every id the child reported as committed is there, complete.
     for (const [seriesId, jobId, resultId] of committed) {
-      const s = db.prepare("SELECT years FROM series WHERE id = ?").get(seriesId) as { years: number } | undefined;
+      const s = db.prepare("SELECT years FROM series WHERE id = ?").get(seriesId) as
+        | { years: number }
+        | undefined;
       expect(s?.years).toBe(400);
-      expect((db.prepare("SELECT COUNT(*) AS n FROM series_rows WHERE series_id = ?").get(seriesId) as { n: number }).n).toBe(400);
-      expect((db.prepare("SELECT status, result_id FROM jobs WHERE id = ?").get(jobId) as { status: string; result_id: string }).result_id).toBe(resultId);
+      expect(
+        (
+          db.prepare("SELECT COUNT(*) AS n FROM series_rows WHERE series_id = ?").get(seriesId) as {
+            n: number;
+          }
+        ).n,
+      ).toBe(400);
+      expect(
+        (
+          db.prepare("SELECT status, result_id FROM jobs WHERE id = ?").get(jobId) as {
+            status: string;
+            result_id: string;
+          }
+        ).result_id,
+      ).toBe(resultId);
     }
     // Nothing partial: every series has all its rows, every done job its result, every result parses.
-    const partial = db.prepare("SELECT s.id FROM series s LEFT JOIN series_rows r ON r.series_id = s.id GROUP BY s.id HAVING COUNT(r.row) <> s.years").all();
+    const partial = db
+      .prepare(
+        "SELECT s.id FROM series s LEFT JOIN series_rows r ON r.series_id = s.id GROUP BY s.id HAVING COUNT(r.row) <> s.years",
+      )
+      .all();
     expect(partial).toEqual([]);
-    const orphanRows = db.prepare("SELECT COUNT(*) AS n FROM series_rows WHERE series_id NOT IN (SELECT id FROM series)").get() as { n: number };
+    const orphanRows = db
+      .prepare("SELECT COUNT(*) AS n FROM series_rows WHERE series_id NOT IN (SELECT id FROM series)")
+      .get() as { n: number };
     expect(orphanRows.n).toBe(0);
-    const doneWithout = db.prepare("SELECT COUNT(*) AS n FROM jobs WHERE status = 'done' AND result_id NOT IN (SELECT id FROM results)").get() as { n: number };
+    const doneWithout = db
+      .prepare(
+        "SELECT COUNT(*) AS n FROM jobs WHERE status = 'done' AND result_id NOT IN (SELECT id FROM results)",
+      )
+      .get() as { n: number };
     expect(doneWithout.n).toBe(0);
-    for (const r of db.prepare("SELECT result FROM results").all() as { result: string }[]) expect(() => JSON.parse(r.result)).not.toThrow();
+    for (const r of db.prepare("SELECT result FROM results").all() as { result: string }[])
+      expect(() => JSON.parse(r.result)).not.toThrow();
     db.close();
   }, 60_000);
 });

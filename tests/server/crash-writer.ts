@@ -6,7 +6,9 @@ import { openDatabase } from "../../server/store/database.js";
 import { Repository } from "../../server/store/repository.js";
 
 const repo = new Repository(openDatabase(process.argv[2]!));
-const csv = "year,count,catch\n" + Array.from({ length: 400 }, (_, i) => `${1600 + i},${100 + (i % 17)},${i % 5}`).join("\n");
+const csv =
+  "year,count,catch\n" +
+  Array.from({ length: 400 }, (_, i) => `${1600 + i},${100 + (i % 17)},${i % 5}`).join("\n");
 const parsed = parseSeriesCsv(csv);
 if (!parsed.ok) throw new Error("bad fixture");
 const provenance = { scenarioId: null, seriesId: null, dataHash: null, programVersion: "test", seed: 1 };

@@ -21,7 +21,9 @@ describe("demo data", () => {
 describe("the store", () => {
   it("records its schema version and applies migrations once", () => {
     const db = openDatabase(":memory:");
-    expect(db.prepare("SELECT MAX(version) AS v FROM schema_version").get()).toEqual({ v: MIGRATIONS.length });
+    expect(db.prepare("SELECT MAX(version) AS v FROM schema_version").get()).toEqual({
+      v: MIGRATIONS.length,
+    });
     expect(db.pragma("foreign_keys", { simple: true })).toBe(1);
   });
 });
@@ -36,7 +38,15 @@ describe("CSV export (RFC 4180)", () => {
     expect(csvField("two\nlines")).toBe('"two\nlines"');
     expect(csvField(null)).toBe("");
     expect(csvField(0.1 + 0.2)).toBe("0.3");
-    expect(toCsv(["x", "y (unit)"], [[1, "a,b"], [null, 2]])).toBe('x,y (unit)\r\n1,"a,b"\r\n,2\r\n');
+    expect(
+      toCsv(
+        ["x", "y (unit)"],
+        [
+          [1, "a,b"],
+          [null, 2],
+        ],
+      ),
+    ).toBe('x,y (unit)\r\n1,"a,b"\r\n,2\r\n');
   });
   it("axis ticks are steps of 1, 2 or 5 × 10^k (common practice, no source)", () => {
     expect(niceTicks(0, 1050)).toEqual([0, 500, 1000]);

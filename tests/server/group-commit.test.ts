@@ -13,10 +13,12 @@ describe("group commit", () => {
     let commits = 0;
     const count = db.prepare("SELECT COUNT(*) AS n FROM t");
     const done = Array.from({ length: 50 }, (_, i) =>
-      g.add(() => ins.run(i, `row ${i}`)).then(() => {
-        commits++;
-        return (count.get() as { n: number }).n;
-      }),
+      g
+        .add(() => ins.run(i, `row ${i}`))
+        .then(() => {
+          commits++;
+          return (count.get() as { n: number }).n;
+        }),
     );
     // Nothing is written before the turn ends.
     expect((count.get() as { n: number }).n).toBe(0);
@@ -31,7 +33,11 @@ describe("group commit", () => {
     db.exec("CREATE TABLE t (k INTEGER PRIMARY KEY, v TEXT NOT NULL)");
     const g = new GroupCommit(db);
     const ins = db.prepare("INSERT INTO t (k, v) VALUES (?, ?)");
-    const results = await Promise.allSettled([g.add(() => ins.run(1, "a")), g.add(() => ins.run(2, null)), g.add(() => ins.run(3, "c"))]);
+    const results = await Promise.allSettled([
+      g.add(() => ins.run(1, "a")),
+      g.add(() => ins.run(2, null)),
+      g.add(() => ins.run(3, "c")),
+    ]);
     expect(results.map((r) => r.status)).toEqual(["fulfilled", "rejected", "fulfilled"]);
     expect(String((results[1] as PromiseRejectedResult).reason)).toMatch(/NOT NULL/);
     expect(db.prepare("SELECT k FROM t ORDER BY k").all()).toEqual([{ k: 1 }, { k: 3 }]);

@@ -2,7 +2,10 @@ import { readFileSync } from "node:fs";
 import request from "supertest";
 import { createRuntime, type Runtime } from "../../server/runtime.js";
 
-export const deerCsv = readFileSync(new URL("../../data-demo/skerra-deer/series.csv", import.meta.url), "utf8");
+export const deerCsv = readFileSync(
+  new URL("../../data-demo/skerra-deer/series.csv", import.meta.url),
+  "utf8",
+);
 
 export const scenarioSpec = {
   model: { family: "ricker", params: { r: 1.2, K: 1000 } },
@@ -13,13 +16,20 @@ export const scenarioSpec = {
 };
 
 /** A runtime on an in-memory database with one worker. */
-export function testRuntime(extra: { token?: string } = {}): { rt: Runtime; api: ReturnType<typeof request> } {
+export function testRuntime(extra: { token?: string } = {}): {
+  rt: Runtime;
+  api: ReturnType<typeof request>;
+} {
   const rt = createRuntime({ database: ":memory:", workers: 1, ...extra });
   return { rt, api: request(rt.app) };
 }
 
 /** Waits for a job to end and returns its final record. */
-export async function finished(rt: Runtime, api: ReturnType<typeof request>, jobId: string): Promise<Record<string, unknown>> {
+export async function finished(
+  rt: Runtime,
+  api: ReturnType<typeof request>,
+  jobId: string,
+): Promise<Record<string, unknown>> {
   await rt.jobs.idle();
   const r = await api.get(`/api/v1/jobs/${jobId}`);
   return r.body as Record<string, unknown>;

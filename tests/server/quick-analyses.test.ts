@@ -11,7 +11,13 @@ afterAll(() => quick.close());
 
 const spec = (i: number) => ({
   model: { family: "ricker", params: { r: 1.2 + (i % 7) * 0.1, K: 1000 } },
-  rule: { kind: "threshold", lowerTrigger: 200, upperTrigger: 500, maxRate: 0.05 + ((i * 0.618) % 0.6), surveyLag: i % 3 },
+  rule: {
+    kind: "threshold",
+    lowerTrigger: 200,
+    upperTrigger: 500,
+    maxRate: 0.05 + ((i * 0.618) % 0.6),
+    surveyLag: i % 3,
+  },
   start: 600,
   horizon: 20,
 });

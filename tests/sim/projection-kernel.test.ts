@@ -2,7 +2,11 @@ import { describe, expect, it } from "vitest";
 import { closedLoop } from "../../src/policy/closed-loop.js";
 import { parseScenario } from "../../src/sim/scenario.js";
 import { parseUncertainty } from "../../src/sim/uncertainty.js";
-import { projectionBlocks, simulateBlocks, type ProjectionParts } from "../../src/sim/stochastic-projection.js";
+import {
+  projectionBlocks,
+  simulateBlocks,
+  type ProjectionParts,
+} from "../../src/sim/stochastic-projection.js";
 import { kernelApplies } from "../../src/sim/wasm-projection.js";
 import { unwrap } from "../helpers.js";
 
@@ -30,13 +34,23 @@ const rules = [
   { kind: "constant-escapement", escapement: 450, timing: "before" },
   { kind: "no-harvest" },
 ];
-const noise = { replicates: 1500, seed: 11, processSd: 0.3, processAutocorrelation: 0.4, observationSd: 0.2, implementationSd: 0.1 };
+const noise = {
+  replicates: 1500,
+  seed: 11,
+  processSd: 0.3,
+  processAutocorrelation: 0.4,
+  observationSd: 0.2,
+  implementationSd: 0.1,
+};
 
 function both(spec: object, u: object): [ProjectionParts, ProjectionParts] {
   const sc = unwrap(parseScenario(spec));
   const unc = unwrap(parseUncertainty(u, sc.model));
   const nb = projectionBlocks(unc);
-  return [simulateBlocks(sc, unc, 0, nb, sc.rule, "auto"), simulateBlocks(sc, unc, 0, nb, sc.rule, "typescript")];
+  return [
+    simulateBlocks(sc, unc, 0, nb, sc.rule, "auto"),
+    simulateBlocks(sc, unc, 0, nb, sc.rule, "typescript"),
+  ];
 }
 
 function expectAgree(wasm: ProjectionParts, ts: ProjectionParts): void {
@@ -44,11 +58,17 @@ function expectAgree(wasm: ProjectionParts, ts: ProjectionParts): void {
   expect(Array.from(wasm.catchCounts)).toEqual(Array.from(ts.catchCounts));
   expect(Array.from(wasm.belowLimitByYear)).toEqual(Array.from(ts.belowLimitByYear));
   expect(Array.from(wasm.recoveryByYear)).toEqual(Array.from(ts.recoveryByYear));
-  expect([wasm.everBelowLimit, wasm.everQuasiExtinct, wasm.zeroCatchYears, wasm.unbounded]).toEqual([ts.everBelowLimit, ts.everQuasiExtinct, ts.zeroCatchYears, ts.unbounded]);
+  expect([wasm.everBelowLimit, wasm.everQuasiExtinct, wasm.zeroCatchYears, wasm.unbounded]).toEqual([
+    ts.everBelowLimit,
+    ts.everQuasiExtinct,
+    ts.zeroCatchYears,
+    ts.unbounded,
+  ]);
   expect(Array.from(wasm.aavCounts)).toEqual(Array.from(ts.aavCounts));
   const close = (a: ArrayLike<number>, b: ArrayLike<number>) => {
     expect(a.length).toBe(b.length);
-    for (let i = 0; i < a.length; i++) expect(Math.abs(a[i]! - b[i]!)).toBeLessThanOrEqual(1e-9 * Math.max(1, Math.abs(b[i]!)));
+    for (let i = 0; i < a.length; i++)
+      expect(Math.abs(a[i]! - b[i]!)).toBeLessThanOrEqual(1e-9 * Math.max(1, Math.abs(b[i]!)));
   };
   close(wasm.catchTotals, ts.catchTotals);
   close(wasm.aavSums, ts.aavSums);
@@ -65,14 +85,26 @@ describe("WebAssembly projection kernel", () => {
         const [wasm, ts] = both({ model, rule, start: 600, horizon: 30 }, noise);
         expectAgree(wasm, ts);
         // The runs are not trivial: the last year's abundances spread over many bins.
-        expect(Array.from(ts.abundanceCounts.subarray((30 * ts.abundanceCounts.length) / 31)).filter((c) => c > 0).length).toBeGreaterThan(50);
+        expect(
+          Array.from(ts.abundanceCounts.subarray((30 * ts.abundanceCounts.length) / 31)).filter((c) => c > 0)
+            .length,
+        ).toBeGreaterThan(50);
       });
     }
   }
 
   it("parameter sets drawn per replicate, and a collapse to zero, agree too", () => {
-    const spec = { model: { family: "ricker", params: { r: 1.2, K: 1000 } }, rule: { kind: "threshold", lowerTrigger: 200, upperTrigger: 500, maxRate: 0.3 }, start: 600, horizon: 50 };
-    const draws = [{ r: 0.9, K: 800 }, { r: 1.4, K: 1100 }, { r: 1.1, K: 950 }];
+    const spec = {
+      model: { family: "ricker", params: { r: 1.2, K: 1000 } },
+      rule: { kind: "threshold", lowerTrigger: 200, upperTrigger: 500, maxRate: 0.3 },
+      start: 600,
+      horizon: 50,
+    };
+    const draws = [
+      { r: 0.9, K: 800 },
+      { r: 1.4, K: 1100 },
+      { r: 1.1, K: 950 },
+    ];
     const [wasm, ts] = both(spec, { replicates: 3000, seed: 5, processSd: 0.4, parameters: { draws } });
     expectAgree(wasm, ts);
     const [w2, t2] = both(spec, { replicates: 3000, seed: 5, processSd: 0.4 });
@@ -86,8 +118,12 @@ describe("WebAssembly projection kernel", () => {
       const [wasm, ts] = both(spec, { ...noise, replicates });
       expectAgree(wasm, ts);
       // Every replicate counted once each year: the histograms hold exactly `replicates` per year.
-      expect(wasm.abundanceCounts.subarray(0, wasm.abundanceCounts.length / 31).reduce((s, c) => s + c, 0)).toBe(replicates);
-      expect(wasm.catchCounts.subarray(29 * (wasm.catchCounts.length / 30)).reduce((s, c) => s + c, 0)).toBe(replicates);
+      expect(
+        wasm.abundanceCounts.subarray(0, wasm.abundanceCounts.length / 31).reduce((s, c) => s + c, 0),
+      ).toBe(replicates);
+      expect(wasm.catchCounts.subarray(29 * (wasm.catchCounts.length / 30)).reduce((s, c) => s + c, 0)).toBe(
+        replicates,
+      );
     }
   });
 
@@ -110,7 +146,9 @@ describe("WebAssembly projection kernel", () => {
   it("is used only where it applies: a one-number state of a family it knows", () => {
     const m = unwrap(parseScenario({ model: families[0], rule: rules[0], start: 600, horizon: 5 }));
     expect(kernelApplies(m.loop)).toBe(true);
-    const lagged = unwrap(parseScenario({ model: families[0], rule: { ...rules[0], surveyLag: 1 }, start: 600, horizon: 5 }));
+    const lagged = unwrap(
+      parseScenario({ model: families[0], rule: { ...rules[0], surveyLag: 1 }, start: 600, horizon: 5 }),
+    );
     expect(kernelApplies(lagged.loop)).toBe(false);
     expect(kernelApplies(closedLoop({ ...m.model, delay: 1 }, m.rule))).toBe(false);
   });

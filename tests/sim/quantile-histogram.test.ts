@@ -1,5 +1,12 @@
 import { describe, expect, it } from "vitest";
-import { addGroupSums, binOf, HISTOGRAM_BINS, HISTOGRAM_GROUPS, histogramPercentiles, positiveSpan } from "../../src/sim/quantile-histogram.js";
+import {
+  addGroupSums,
+  binOf,
+  HISTOGRAM_BINS,
+  HISTOGRAM_GROUPS,
+  histogramPercentiles,
+  positiveSpan,
+} from "../../src/sim/quantile-histogram.js";
 import { seededUniform } from "../../src/sim/rng.js";
 
 // The grouped percentile reader against the sample's own order statistics: the empirical
@@ -11,7 +18,8 @@ describe("quantile histogram", () => {
     const u = seededUniform(3);
     const K = 1000;
     const values: number[] = [];
-    for (let i = 0; i < 20_000; i++) values.push(u() < 0.3 ? 0 : K * Math.exp(4 * (u() - 0.5)) * (u() < 0.1 ? 1e-6 : 1));
+    for (let i = 0; i < 20_000; i++)
+      values.push(u() < 0.3 ? 0 : K * Math.exp(4 * (u() - 0.5)) * (u() < 0.1 ? 1e-6 : 1));
     const counts = new Uint32Array(HISTOGRAM_BINS);
     for (const v of values) counts[binOf(v, 1 / K)]!++;
     const positive = values.filter((v) => v > 0);
@@ -19,7 +27,12 @@ describe("quantile histogram", () => {
     addGroupSums(counts, groups, 1, () => positiveSpan(Math.min(...positive), Math.max(...positive), 1 / K));
     expect(groups.reduce((s, c) => s + c, 0)).toBe(values.length);
     const levels = [5, 10, 25, 50, 75, 90, 95];
-    const got = histogramPercentiles((g) => groups[g]!, (i) => counts[i]!, levels, K);
+    const got = histogramPercentiles(
+      (g) => groups[g]!,
+      (i) => counts[i]!,
+      levels,
+      K,
+    );
     const sorted = [...values].sort((a, b) => a - b);
     levels.forEach((p, i) => {
       const exact = sorted[Math.ceil((p / 100) * sorted.length) - 1]!;

@@ -12,7 +12,12 @@ import { expectClose, model, rule, unwrap } from "../helpers.js";
 // iff r' < 2 (May 1976, Nature 261:
 // 459–467: the Ricker period-doubles at r = 2). For r = 2.3 the boundary is
 // h = 1 − e^(2 − r) = 1 − e^(−0.3) ≈ 0.2592: below it the stock oscillates, above it settles.
-const spec = { model: { family: "ricker", params: { r: 2.3, K: 1000 } }, rule: { kind: "no-harvest" }, start: 500, horizon: 30 };
+const spec = {
+  model: { family: "ricker", params: { r: 2.3, K: 1000 } },
+  rule: { kind: "no-harvest" },
+  start: 500,
+  horizon: 30,
+};
 const rules = [
   { kind: "constant-rate", rate: 0.2, timing: "before" },
   { kind: "constant-rate", rate: 0.3, timing: "before" },
@@ -40,7 +45,10 @@ describe("rule comparison on common random numbers", () => {
   });
 
   it("bad rules are named by position", () => {
-    expect(parseRules([rules[0], { kind: "constant-rate", rate: 1.5 }])).toMatchObject({ ok: false, issue: { code: "param_out_of_range", field: "rules[1].rate" } });
+    expect(parseRules([rules[0], { kind: "constant-rate", rate: 1.5 }])).toMatchObject({
+      ok: false,
+      issue: { code: "param_out_of_range", field: "rules[1].rate" },
+    });
     expect(parseRules([])).toMatchObject({ ok: false, issue: { field: "rules" } });
     expect(parseRules("rate")).toMatchObject({ ok: false, issue: { code: "wrong_type", field: "rules" } });
   });
@@ -66,7 +74,9 @@ describe("robust verdict across a weighted model set", () => {
     );
     expectClose(v.weights.stable, 0.92, 1e-12, "stable");
     expectClose(v.weights.oscillating, 0.08, 1e-12, "oscillating");
-    expect(v.summary).toBe("stable under 92% of the weighted model set; oscillating under 8% of the weighted model set");
+    expect(v.summary).toBe(
+      "stable under 92% of the weighted model set; oscillating under 8% of the weighted model set",
+    );
   });
   it("a quota above one model's MSY counts as collapse under that model", () => {
     // Schaefer (1954): the discrete logistic's MSY is rK/4 = 62.5 for r = 0.25, K = 1000.
@@ -84,7 +94,13 @@ describe("robust verdict across a weighted model set", () => {
   });
   it("rejects negative or all-zero weights, naming the field", () => {
     const m = model("ricker", { r: 1, K: 10 });
-    expect(robustVerdict([{ model: m, weight: -1 }], rule({ kind: "no-harvest" }))).toMatchObject({ ok: false, issue: { field: "models[0].weight" } });
-    expect(robustVerdict([{ model: m, weight: 0 }], rule({ kind: "no-harvest" }))).toMatchObject({ ok: false, issue: { field: "models" } });
+    expect(robustVerdict([{ model: m, weight: -1 }], rule({ kind: "no-harvest" }))).toMatchObject({
+      ok: false,
+      issue: { field: "models[0].weight" },
+    });
+    expect(robustVerdict([{ model: m, weight: 0 }], rule({ kind: "no-harvest" }))).toMatchObject({
+      ok: false,
+      issue: { field: "models" },
+    });
   });
 });

@@ -14,7 +14,14 @@ const spec = {
   start: 250,
   horizon: 25,
 };
-const noisy = { replicates: 3000, seed: 99, processSd: 0.3, processAutocorrelation: 0.5, observationSd: 0.2, implementationSd: 0.1 };
+const noisy = {
+  replicates: 3000,
+  seed: 99,
+  processSd: 0.3,
+  processAutocorrelation: 0.5,
+  observationSd: 0.2,
+  implementationSd: 0.1,
+};
 const sc = unwrap(parseScenario(spec));
 const u = unwrap(parseUncertainty(noisy, sc.model));
 
@@ -27,7 +34,18 @@ describe("seeded runs", () => {
     expect(projectStochastic(sc, other).abundance).not.toEqual(projectStochastic(sc, u).abundance);
   });
   it("a delayed, lagged, capped loop (the state-vector path) reproduces too", () => {
-    const sc2 = unwrap(parseScenario({ ...spec, model: { family: "ricker", params: { r: 0.8, K: 500 }, delay: 1 }, rule: { kind: "constant-rate", rate: 0.2, surveyLag: 2, quotaChange: { maxIncrease: 0.1, maxDecrease: 0.2 } } }));
+    const sc2 = unwrap(
+      parseScenario({
+        ...spec,
+        model: { family: "ricker", params: { r: 0.8, K: 500 }, delay: 1 },
+        rule: {
+          kind: "constant-rate",
+          rate: 0.2,
+          surveyLag: 2,
+          quotaChange: { maxIncrease: 0.1, maxDecrease: 0.2 },
+        },
+      }),
+    );
     const a = projectStochastic(sc2, unwrap(parseUncertainty(noisy, sc2.model)));
     expect(a).toEqual(projectStochastic(sc2, unwrap(parseUncertainty(noisy, sc2.model))));
     // Without noise the state-vector path is the deterministic projection exactly.
@@ -38,8 +56,12 @@ describe("seeded runs", () => {
 
 describe("common random numbers", () => {
   it("two identical rules give exactly zero difference", () => {
-    const a = projectStochastic(sc, u, { rule: rule({ kind: "threshold", lowerTrigger: 100, upperTrigger: 300, maxRate: 0.25 }) });
-    const b = projectStochastic(sc, u, { rule: rule({ kind: "threshold", lowerTrigger: 100, upperTrigger: 300, maxRate: 0.25 }) });
+    const a = projectStochastic(sc, u, {
+      rule: rule({ kind: "threshold", lowerTrigger: 100, upperTrigger: 300, maxRate: 0.25 }),
+    });
+    const b = projectStochastic(sc, u, {
+      rule: rule({ kind: "threshold", lowerTrigger: 100, upperTrigger: 300, maxRate: 0.25 }),
+    });
     for (let i = 0; i < a.levels.length; i++) {
       for (let t = 0; t <= 25; t++) expect(a.abundance[i]![t]! - b.abundance[i]![t]!).toBe(0);
       for (let t = 0; t < 25; t++) expect(a.catch[i]![t]! - b.catch[i]![t]!).toBe(0);
@@ -68,19 +90,29 @@ describe("worker pool", () => {
   });
   it("reports progress and can be cancelled", async () => {
     const seen: number[] = [];
-    const done = await pools[1]!.projection({ scenario: spec, uncertainty: { ...noisy, replicates: 20_000 } }, undefined, (d, total) => {
-      seen.push(d);
-      expect(total).toBe(20);
-    });
+    const done = await pools[1]!.projection(
+      { scenario: spec, uncertainty: { ...noisy, replicates: 20_000 } },
+      undefined,
+      (d, total) => {
+        seen.push(d);
+        expect(total).toBe(20);
+      },
+    );
     expect(done.ok).toBe(true);
     expect(seen[seen.length - 1]).toBe(20);
     const controller = new AbortController();
-    const pending = pools[1]!.projection({ scenario: spec, uncertainty: { ...noisy, replicates: 1_000_000 } }, controller.signal);
+    const pending = pools[1]!.projection(
+      { scenario: spec, uncertainty: { ...noisy, replicates: 1_000_000 } },
+      controller.signal,
+    );
     controller.abort();
     await expect(pending).rejects.toThrow(/abort/i);
   });
   it("bad input fails before any worker starts, naming the field", async () => {
     const r = await pools[0]!.projection({ scenario: spec, uncertainty: { ...noisy, replicates: 5 } });
-    expect(r).toMatchObject({ ok: false, issue: { code: "param_out_of_range", field: "uncertainty.replicates", min: 10 } });
+    expect(r).toMatchObject({
+      ok: false,
+      issue: { code: "param_out_of_range", field: "uncertainty.replicates", min: 10 },
+    });
   });
 });

@@ -7,7 +7,8 @@ import { projectLoop } from "../../src/sim/project.js";
 import { analyseStability } from "../../src/equilibria/stability.js";
 import { expectClose, unwrap } from "../helpers.js";
 
-const fixture = (name: string) => JSON.parse(readFileSync(new URL(`../fixtures/stochastic/${name}`, import.meta.url), "utf8"));
+const fixture = (name: string) =>
+  JSON.parse(readFileSync(new URL(`../fixtures/stochastic/${name}`, import.meta.url), "utf8"));
 
 function scenario(spec: Record<string, unknown>): Scenario {
   return unwrap(parseScenario(spec));
@@ -22,18 +23,29 @@ describe("stochastic projection without noise equals the deterministic one", () 
     const R0 = 2.5;
     const K = 800;
     const N0 = 40;
-    const sc = scenario({ model: { family: "beverton-holt", params: { R0, K } }, rule: { kind: "no-harvest" }, start: N0, horizon: 30 });
+    const sc = scenario({
+      model: { family: "beverton-holt", params: { R0, K } },
+      rule: { kind: "no-harvest" },
+      start: N0,
+      horizon: 30,
+    });
     const p = run(sc, { replicates: 50 });
     for (let t = 0; t <= 30; t++) {
       const exact = (K * N0) / (N0 + (K - N0) * Math.pow(R0, -t));
-      for (let i = 0; i < p.levels.length; i++) expectClose(p.abundance[i]![t]! / K, exact / K, 1e-12, `P${p.levels[i]} N_${t}`);
+      for (let i = 0; i < p.levels.length; i++)
+        expectClose(p.abundance[i]![t]! / K, exact / K, 1e-12, `P${p.levels[i]} N_${t}`);
     }
     expect(p.risk.meanCatch).toBe(0);
     expect(p.risk.zeroCatchFraction).toBe(1);
   });
 
   it("settles on the stable equilibrium that src/equilibria reports (Beverton–Holt, harvest rate 0.3)", () => {
-    const sc = scenario({ model: { family: "beverton-holt", params: { R0: 3, K: 1000 } }, rule: { kind: "constant-rate", rate: 0.3 }, start: 100, horizon: 200 });
+    const sc = scenario({
+      model: { family: "beverton-holt", params: { R0: 3, K: 1000 } },
+      rule: { kind: "constant-rate", rate: 0.3 },
+      start: 100,
+      horizon: 200,
+    });
     const a = analyseStability(sc.loop);
     const op = a.equilibria[a.operating!]!;
     expect(op.verdict.kind).toBe("stable-monotone");
@@ -54,7 +66,12 @@ describe("pure lognormal noise without density dependence (scipy.stats.lognorm)"
   for (const c of cases) {
     it(`percentiles at t = ${c.t} for σ = ${c.sigma}, ρ = ${c.rho}`, () => {
       // A Ricker with K = 1e12 has g(N) = exp(r(1 − N/K)) = exp(r) to about 1e-7 here.
-      const sc = scenario({ model: { family: "ricker", params: { r: c.r, K: 1e12 } }, rule: { kind: "no-harvest" }, start: c.N0, horizon: c.t });
+      const sc = scenario({
+        model: { family: "ricker", params: { r: c.r, K: 1e12 } },
+        rule: { kind: "no-harvest" },
+        start: c.N0,
+        horizon: c.t,
+      });
       const p = run(sc, { replicates: n, seed: 11, processSd: c.sigma, processAutocorrelation: c.rho });
       c.levels.forEach((level: number, i: number) => {
         const q = c.quantiles[i];
@@ -63,7 +80,10 @@ describe("pure lognormal noise without density dependence (scipy.stats.lognorm)"
         // 4.5 of them, plus the histogram's 0.3% bin width.
         const se = Math.sqrt(((level / 100) * (1 - level / 100)) / n) / c.densities[i];
         const tol = 4.5 * se + 0.003 * q;
-        expect(Math.abs(p.abundance[i]![c.t]! - q), `P${level}: ${p.abundance[i]![c.t]} vs ${q} ± ${tol}`).toBeLessThan(tol);
+        expect(
+          Math.abs(p.abundance[i]![c.t]! - q),
+          `P${level}: ${p.abundance[i]![c.t]} vs ${q} ± ${tol}`,
+        ).toBeLessThan(tol);
       });
     });
   }
@@ -81,21 +101,41 @@ describe("risk metrics against an independent numpy Monte Carlo", () => {
   });
   const n = 100_000;
   const p = run(sc, { replicates: n, seed: 5, processSd: 0.4 });
-  const within = (ours: number, oursSe: number, theirs: { value: number; standardError: number }, what: string) => {
+  const within = (
+    ours: number,
+    oursSe: number,
+    theirs: { value: number; standardError: number },
+    what: string,
+  ) => {
     const tol = 5 * Math.hypot(oursSe, theirs.standardError);
     expect(Math.abs(ours - theirs.value), `${what}: ${ours} vs ${theirs.value} ± ${tol}`).toBeLessThan(tol);
   };
   it("probabilities of falling below the limit and of quasi-extinction", () => {
     within(p.risk.belowLimit.probability, p.risk.belowLimit.standardError, ref.belowLimit, "P(below 0.2K)");
-    within(p.risk.quasiExtinction.probability, p.risk.quasiExtinction.standardError, ref.quasiExtinction, "P(below 0.01K)");
+    within(
+      p.risk.quasiExtinction.probability,
+      p.risk.quasiExtinction.standardError,
+      ref.quasiExtinction,
+      "P(below 0.01K)",
+    );
     expect(p.risk.belowLimit.probability).toBeGreaterThan(0.5);
   });
   it("mean catch, average annual variation and zero-catch years", () => {
     // Our standard errors for these are taken as the reference's scaled to our n.
     const scale = Math.sqrt(200_000 / n);
     within(p.risk.meanCatch, ref.meanCatch.standardError * scale, ref.meanCatch, "mean catch");
-    within(p.risk.averageAnnualVariation!, ref.averageAnnualVariation.standardError * scale, ref.averageAnnualVariation, "AAV");
-    within(p.risk.zeroCatchFraction, ref.zeroCatchFraction.standardError * scale, ref.zeroCatchFraction, "zero-catch fraction");
+    within(
+      p.risk.averageAnnualVariation!,
+      ref.averageAnnualVariation.standardError * scale,
+      ref.averageAnnualVariation,
+      "AAV",
+    );
+    within(
+      p.risk.zeroCatchFraction,
+      ref.zeroCatchFraction.standardError * scale,
+      ref.zeroCatchFraction,
+      "zero-catch fraction",
+    );
   });
   it("median abundance in the early years (before the median stock hits zero)", () => {
     for (let t = 0; t <= 8; t++) {

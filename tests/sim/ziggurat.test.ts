@@ -7,7 +7,9 @@ import { zigguratNormal } from "../../src/sim/ziggurat.js";
 // (tests/fixtures/stochastic/make_stochastic_fixtures.py), against the empirical CDF of
 // two million ziggurat draws, within 5 binomial standard errors; 3.44 is where the
 // ziggurat's tail method takes over (Marsaglia & Tsang 2000).
-const ref = JSON.parse(readFileSync(new URL("../fixtures/stochastic/normal.json", import.meta.url), "utf8")) as { x: number[]; cdf: number[] };
+const ref = JSON.parse(
+  readFileSync(new URL("../fixtures/stochastic/normal.json", import.meta.url), "utf8"),
+) as { x: number[]; cdf: number[] };
 
 describe("ziggurat standard normal deviates", () => {
   const n = 2_000_000;

@@ -25,11 +25,27 @@ const WARNINGS: Record<string, string> = {
 export function countsStep(root: HTMLElement): void {
   const demos = el("div", { class: "demos" }, "Loading the demonstration data…");
   const name = el("input", { id: "series-name", type: "text", value: "my survey", autocomplete: "off" });
-  const file = el("input", { id: "series-file", type: "file", accept: ".csv,text/csv", onchange: () => file.files?.[0] && void readFile(file.files[0]) });
+  const file = el("input", {
+    id: "series-file",
+    type: "file",
+    accept: ".csv,text/csv",
+    onchange: () => file.files?.[0] && void readFile(file.files[0]),
+  });
   const drop = el(
     "div",
-    { class: "drop", tabindex: "0", role: "button", "aria-describedby": "drop-help", onkeydown: (e: KeyboardEvent) => (e.key === "Enter" || e.key === " ") && (e.preventDefault(), file.click()) },
-    el("p", { id: "drop-help" }, "Drop a CSV file here, or press Enter to choose one. Columns: year, count, and optionally catch, stocking, cv."),
+    {
+      class: "drop",
+      tabindex: "0",
+      role: "button",
+      "aria-describedby": "drop-help",
+      onkeydown: (e: KeyboardEvent) =>
+        (e.key === "Enter" || e.key === " ") && (e.preventDefault(), file.click()),
+    },
+    el(
+      "p",
+      { id: "drop-help" },
+      "Drop a CSV file here, or press Enter to choose one. Columns: year, count, and optionally catch, stocking, cv.",
+    ),
   );
   drop.addEventListener("click", () => file.click());
   drop.addEventListener("dragover", (e) => {
@@ -64,7 +80,12 @@ export function countsStep(root: HTMLElement): void {
         problems,
         el("h3", {}, "Data problems"),
         list.length > 1
-          ? el("div", { role: "alert", class: "error" }, el("p", {}, `${list.length} problems, row by row:`), el("ul", { id: "problem-list" }, ...list.map((p) => el("li", {}, p.detail))))
+          ? el(
+              "div",
+              { role: "alert", class: "error" },
+              el("p", {}, `${list.length} problems, row by row:`),
+              el("ul", { id: "problem-list" }, ...list.map((p) => el("li", {}, p.detail))),
+            )
           : errorBox(e),
       );
     }
@@ -85,14 +106,39 @@ export function countsStep(root: HTMLElement): void {
   function render(): void {
     const s = state.series;
     if (!s) return;
-    const w = (s.warnings as { code: string; years?: number[] }[]).map((x) => el("li", {}, `${WARNINGS[x.code] ?? x.code}${x.years ? `: ${x.years.join(", ")}` : ""}`));
-    show(problems, w.length ? el("div", { class: "note" }, el("h3", {}, "Data notes"), el("ul", {}, ...w)) : null);
+    const w = (s.warnings as { code: string; years?: number[] }[]).map((x) =>
+      el("li", {}, `${WARNINGS[x.code] ?? x.code}${x.years ? `: ${x.years.join(", ")}` : ""}`),
+    );
+    show(
+      problems,
+      w.length ? el("div", { class: "note" }, el("h3", {}, "Data notes"), el("ul", {}, ...w)) : null,
+    );
     show(
       view,
-      el("p", {}, `${s.name}: ${s.rows.length} years, ${s.rows[0]?.year}–${s.rows[s.rows.length - 1]?.year}. `, el("a", { href: `/api/v1/series/${s.id}/csv`, download: "" }, "Download the CSV")),
-      el("div", { class: "scroll" }, table("The series", ["year", "count", "catch", "stocking", "cv"], s.rows.map((r) => [String(r.year), r.count, r.catch, r.stocking, r.cv]), "series-table")),
+      el(
+        "p",
+        {},
+        `${s.name}: ${s.rows.length} years, ${s.rows[0]?.year}–${s.rows[s.rows.length - 1]?.year}. `,
+        el("a", { href: `/api/v1/series/${s.id}/csv`, download: "" }, "Download the CSV"),
+      ),
+      el(
+        "div",
+        { class: "scroll" },
+        table(
+          "The series",
+          ["year", "count", "catch", "stocking", "cv"],
+          s.rows.map((r) => [String(r.year), r.count, r.catch, r.stocking, r.cv]),
+          "series-table",
+        ),
+      ),
     );
-    countsChart(chart, s.rows.map((r) => r.year), s.rows.map((r) => r.count), s.rows.map((r) => r.catch), s.rows.map((r) => r.stocking));
+    countsChart(
+      chart,
+      s.rows.map((r) => r.year),
+      s.rows.map((r) => r.count),
+      s.rows.map((r) => r.catch),
+      s.rows.map((r) => r.stocking),
+    );
   }
 
   async function loadDemos(): Promise<void> {
@@ -123,7 +169,14 @@ export function countsStep(root: HTMLElement): void {
               class: "secondary",
               "data-demo": s.name,
               onclick: async () => {
-                const spec = sc.spec as { model: Record<string, unknown>; rule: RuleSpec; start: number[]; horizon: number; startYear: number; uncertainty?: Record<string, number> };
+                const spec = sc.spec as {
+                  model: Record<string, unknown>;
+                  rule: RuleSpec;
+                  start: number[];
+                  horizon: number;
+                  startYear: number;
+                  uncertainty?: Record<string, number>;
+                };
                 state.rule = spec.rule;
                 state.start = spec.start;
                 state.horizon = spec.horizon;
@@ -131,7 +184,9 @@ export function countsStep(root: HTMLElement): void {
                 state.model = spec.model as never;
                 if (spec.uncertainty) Object.assign(state.uncertainty, spec.uncertainty);
                 state.scenarioName = sc.name;
-                state.candidates = rules.items.filter((r) => r.name.startsWith(`${s.name}:`)).map((r) => ({ id: r.id, name: r.name, spec: r.spec as RuleSpec }));
+                state.candidates = rules.items
+                  .filter((r) => r.name.startsWith(`${s.name}:`))
+                  .map((r) => ({ id: r.id, name: r.name, spec: r.spec as RuleSpec }));
                 await open(s.id);
               },
             },
@@ -147,8 +202,19 @@ export function countsStep(root: HTMLElement): void {
   show(
     root,
     el("h2", {}, "Counts"),
-    el("p", { class: "lead" }, "Start from a survey or census series with the catches and releases of each year."),
-    el("div", { class: "row" }, el("label", { for: "series-name" }, "Name of the series"), name, el("label", { for: "series-file", class: "file-label" }, "Choose a CSV file"), file),
+    el(
+      "p",
+      { class: "lead" },
+      "Start from a survey or census series with the catches and releases of each year.",
+    ),
+    el(
+      "div",
+      { class: "row" },
+      el("label", { for: "series-name" }, "Name of the series"),
+      name,
+      el("label", { for: "series-file", class: "file-label" }, "Choose a CSV file"),
+      file,
+    ),
     drop,
     demos,
     problems,

@@ -4,7 +4,16 @@ import { fitChart, residualChart } from "../charts.js";
 import { changed, NUISANCE, onChange, state } from "../state.js";
 import { el, fmt, runJob, setStatus, show } from "../ui.js";
 
-const FAMILIES = ["discrete-logistic", "ricker", "beverton-holt", "shepherd", "hassell", "theta-logistic", "gompertz", "allee-ricker"];
+const FAMILIES = [
+  "discrete-logistic",
+  "ricker",
+  "beverton-holt",
+  "shepherd",
+  "hassell",
+  "theta-logistic",
+  "gompertz",
+  "allee-ricker",
+];
 
 interface Fit {
   family: string;
@@ -22,13 +31,25 @@ interface Fit {
 }
 
 const label = (f: Fit) => `${f.family}${f.delay ? ` (delay ${f.delay})` : ""}`;
-const withInterval = (v: number | undefined, ci: { lower: number; upper: number } | null | undefined) => (v === undefined ? "—" : ci ? `${fmt(v)} (${fmt(ci.lower, 3)}–${fmt(ci.upper, 3)})` : fmt(v));
+const withInterval = (v: number | undefined, ci: { lower: number; upper: number } | null | undefined) =>
+  v === undefined ? "—" : ci ? `${fmt(v)} (${fmt(ci.lower, 3)}–${fmt(ci.upper, 3)})` : fmt(v);
 
 export function fitStep(root: HTMLElement): void {
-  const boxes = FAMILIES.map((f) => el("input", { type: "checkbox", id: `fam-${f}`, value: f, checked: true }));
+  const boxes = FAMILIES.map((f) =>
+    el("input", { type: "checkbox", id: `fam-${f}`, value: f, checked: true }),
+  );
   const delay1 = el("input", { type: "checkbox", id: "fit-delay1", checked: true });
-  const likelihood = el("select", { id: "fit-likelihood" }, ...["lognormal", "normal", "poisson", "negative-binomial"].map((l) => el("option", { value: l }, l)));
-  const timing = el("select", { id: "fit-timing" }, el("option", { value: "after" }, "catch after reproduction"), el("option", { value: "before" }, "catch before reproduction"));
+  const likelihood = el(
+    "select",
+    { id: "fit-likelihood" },
+    ...["lognormal", "normal", "poisson", "negative-binomial"].map((l) => el("option", { value: l }, l)),
+  );
+  const timing = el(
+    "select",
+    { id: "fit-timing" },
+    el("option", { value: "after" }, "catch after reproduction"),
+    el("option", { value: "before" }, "catch before reproduction"),
+  );
   const job = el("div", { class: "job-area" });
   const results = el("div", { id: "fit-results" });
   const curves = el("div", { class: "chart" });
@@ -40,12 +61,22 @@ export function fitStep(root: HTMLElement): void {
   async function run(): Promise<void> {
     if (!state.series) return;
     const families = boxes.filter((b) => b.checked).map((b) => b.value);
-    if (!families.length) return show(job, el("p", { class: "error", role: "alert" }, "Choose at least one family."));
+    if (!families.length)
+      return show(job, el("p", { class: "error", role: "alert" }, "Choose at least one family."));
     const done = await runJob(job, "Fitting", () =>
-      postJson<{ job: JobView }>("/api/v1/fits", { seriesId: state.series!.id, families, delays: delay1.checked ? [0, 1] : [0], likelihood: likelihood.value, timing: timing.value }),
+      postJson<{ job: JobView }>("/api/v1/fits", {
+        seriesId: state.series!.id,
+        families,
+        delays: delay1.checked ? [0, 1] : [0],
+        likelihood: likelihood.value,
+        timing: timing.value,
+      }),
     );
     if (!done?.links.result) return;
-    const rec = await getJson<{ id: string; result: { fits: Fit[]; skipped: { family: string; delay: number; reason: string }[] } }>(done.links.result);
+    const rec = await getJson<{
+      id: string;
+      result: { fits: Fit[]; skipped: { family: string; delay: number; reason: string }[] };
+    }>(done.links.result);
     state.fitId = rec.id;
     fits = rec.result.fits;
     render(rec.result.skipped);
@@ -59,7 +90,12 @@ export function fitStep(root: HTMLElement): void {
     for (const [k, v] of Object.entries(f.estimates)) if (!NUISANCE.has(k)) params[k] = v;
     state.model = { family: f.family, params, delay: f.delay };
     state.rule = { ...state.rule, timing: f.timing };
-    residualChart(resid, state.series.rows.map((r) => r.year), f.residuals, label(f));
+    residualChart(
+      resid,
+      state.series.rows.map((r) => r.year),
+      f.residuals,
+      label(f),
+    );
     changed();
     setStatus(`Carrying on with ${label(f)}.`);
   }
@@ -67,7 +103,15 @@ export function fitStep(root: HTMLElement): void {
   function render(skipped: { family: string; delay: number; reason: string }[]): void {
     const rows = fits.map((f, i) => {
       const g = f.estimates.r !== undefined ? "r" : "R0";
-      const radio = el("input", { type: "radio", name: "chosen-model", id: `choose-${i}`, value: String(i), checked: i === 0, onchange: () => choose(i), "aria-label": `carry on with ${label(f)}` });
+      const radio = el("input", {
+        type: "radio",
+        name: "chosen-model",
+        id: `choose-${i}`,
+        value: String(i),
+        checked: i === 0,
+        onchange: () => choose(i),
+        "aria-label": `carry on with ${label(f)}`,
+      });
       return el(
         "tr",
         {},
@@ -79,7 +123,17 @@ export function fitStep(root: HTMLElement): void {
         el("td", { class: "num" }, `${g} = ${withInterval(f.estimates[g], f.intervals[g])}`),
         el("td", { class: "num" }, withInterval(f.estimates.K, f.intervals.K)),
         el("td", {}, f.management.verdictLabel ?? "—"),
-        el("td", {}, f.identifiability.trustworthy ? "yes" : el("span", { class: "warn" }, `no (${f.identifiability.problems.map((p) => p.code).join(", ")})`)),
+        el(
+          "td",
+          {},
+          f.identifiability.trustworthy
+            ? "yes"
+            : el(
+                "span",
+                { class: "warn" },
+                `no (${f.identifiability.problems.map((p) => p.code).join(", ")})`,
+              ),
+        ),
       );
     });
     show(
@@ -88,23 +142,84 @@ export function fitStep(root: HTMLElement): void {
         "table",
         { class: "data", id: "fit-table" },
         el("caption", {}, "Models ranked by AICc (intervals: approximate 95%)"),
-        el("thead", {}, el("tr", {}, ...["use", "model", "AICc", "ΔAICc", "weight", "growth rate", "K", "unharvested", "trustworthy"].map((h) => el("th", { scope: "col" }, h)))),
+        el(
+          "thead",
+          {},
+          el(
+            "tr",
+            {},
+            ...[
+              "use",
+              "model",
+              "AICc",
+              "ΔAICc",
+              "weight",
+              "growth rate",
+              "K",
+              "unharvested",
+              "trustworthy",
+            ].map((h) => el("th", { scope: "col" }, h)),
+          ),
+        ),
         el("tbody", {}, ...rows),
       ),
-      skipped.length ? el("p", { class: "note" }, `Not fitted: ${skipped.map((s) => `${s.family} (delay ${s.delay}): ${s.reason}`).join("; ")}`) : null,
-      state.fitId ? el("p", {}, el("a", { href: `/api/v1/fits/${state.fitId}/table.csv`, download: "" }, "Download the table (CSV)")) : null,
+      skipped.length
+        ? el(
+            "p",
+            { class: "note" },
+            `Not fitted: ${skipped.map((s) => `${s.family} (delay ${s.delay}): ${s.reason}`).join("; ")}`,
+          )
+        : null,
+      state.fitId
+        ? el(
+            "p",
+            {},
+            el(
+              "a",
+              { href: `/api/v1/fits/${state.fitId}/table.csv`, download: "" },
+              "Download the table (CSV)",
+            ),
+          )
+        : null,
     );
     const s = state.series!;
-    fitChart(curves, s.rows.map((r) => r.year), s.rows.map((r) => r.count), fits.slice(0, 3).map((f) => ({ label: label(f), fitted: f.fitted })));
+    fitChart(
+      curves,
+      s.rows.map((r) => r.year),
+      s.rows.map((r) => r.count),
+      fits.slice(0, 3).map((f) => ({ label: label(f), fitted: f.fitted })),
+    );
   }
 
   show(
     root,
     el("h2", {}, "Fit"),
-    el("p", { class: "lead" }, "Fit density-dependent growth models to the counts, with the catches, and rank them by AICc. The chosen model carries on to the stability step."),
+    el(
+      "p",
+      { class: "lead" },
+      "Fit density-dependent growth models to the counts, with the catches, and rank them by AICc. The chosen model carries on to the stability step.",
+    ),
     needSeries,
-    el("fieldset", {}, el("legend", {}, "Families"), el("div", { class: "checks" }, ...FAMILIES.map((f, i) => el("label", { for: `fam-${f}` }, boxes[i]!, ` ${f}`)))),
-    el("div", { class: "row" }, el("label", { for: "fit-delay1" }, delay1, " also with a one-year delay"), el("label", { for: "fit-likelihood" }, "Error"), likelihood, el("label", { for: "fit-timing" }, "Timing"), timing, button),
+    el(
+      "fieldset",
+      {},
+      el("legend", {}, "Families"),
+      el(
+        "div",
+        { class: "checks" },
+        ...FAMILIES.map((f, i) => el("label", { for: `fam-${f}` }, boxes[i]!, ` ${f}`)),
+      ),
+    ),
+    el(
+      "div",
+      { class: "row" },
+      el("label", { for: "fit-delay1" }, delay1, " also with a one-year delay"),
+      el("label", { for: "fit-likelihood" }, "Error"),
+      likelihood,
+      el("label", { for: "fit-timing" }, "Timing"),
+      timing,
+      button,
+    ),
     job,
     results,
     el("div", { class: "two" }, curves, resid),
@@ -112,7 +227,8 @@ export function fitStep(root: HTMLElement): void {
   const sync = () => {
     needSeries.hidden = Boolean(state.series);
     button.disabled = !state.series;
-    if (state.rule.timing === "before" || state.rule.timing === "after") timing.value = String(state.rule.timing);
+    if (state.rule.timing === "before" || state.rule.timing === "after")
+      timing.value = String(state.rule.timing);
   };
   onChange(sync);
   sync();

@@ -7,7 +7,18 @@ import { changed, onChange, scenarioSpec, state, type RuleSpec } from "../state.
 import { el, errorBox, fmt, runJob, setStatus, show, table } from "../ui.js";
 
 interface Stability {
-  equilibria: { equilibrium: { abundance: number }; eigenvalues: { re: number; im: number }[]; verdict: { kind: string; label: string; meaning: string; dominantModulus: number; returnTime: number | null; period: number | null } }[];
+  equilibria: {
+    equilibrium: { abundance: number };
+    eigenvalues: { re: number; im: number }[];
+    verdict: {
+      kind: string;
+      label: string;
+      meaning: string;
+      dominantModulus: number;
+      returnTime: number | null;
+      period: number | null;
+    };
+  }[];
   operating: number | null;
   noPositiveEquilibrium: boolean;
 }
@@ -27,7 +38,13 @@ const SETTINGS: Record<string, string[]> = {
   "constant-escapement": ["escapement"],
   threshold: ["lowerTrigger", "upperTrigger", "maxRate"],
 };
-const MAIN: Record<string, string> = { "no-harvest": "model.params.K", "constant-catch": "rule.quota", "constant-rate": "rule.rate", "constant-escapement": "rule.escapement", threshold: "rule.maxRate" };
+const MAIN: Record<string, string> = {
+  "no-harvest": "model.params.K",
+  "constant-catch": "rule.quota",
+  "constant-rate": "rule.rate",
+  "constant-escapement": "rule.escapement",
+  threshold: "rule.maxRate",
+};
 
 /** A slider's range for a setting, from the model's K. */
 function range(name: string, K: number): { min: number; max: number; step: number } {
@@ -71,7 +88,11 @@ export function stabilityStep(root: HTMLElement): void {
   const marginOut = el("p", { id: "margin", "aria-live": "polite" });
   const robustOut = el("p", { id: "robust", "aria-live": "polite" });
   const timing = el("p", { class: "timing", id: "update-time" });
-  const keep = el("button", { type: "button", class: "secondary", id: "keep-analysis", onclick: () => void keepAnalysis() }, "Keep this analysis for the report");
+  const keep = el(
+    "button",
+    { type: "button", class: "secondary", id: "keep-analysis", onclick: () => void keepAnalysis() },
+    "Keep this analysis for the report",
+  );
   const bifArea = el("div", {});
   const mapArea = el("div", {});
   const needModel = el("p", { class: "note" }, "Fit a model in step 2, or open a demo in step 1.");
@@ -85,7 +106,11 @@ export function stabilityStep(root: HTMLElement): void {
   function paths(): string[] {
     const m = state.model;
     if (!m) return [];
-    return [...Object.keys(m.params).map((p) => `model.params.${p}`), ...SETTINGS[state.rule.kind]!.map((s) => `rule.${s}`), "rule.surveyLag"];
+    return [
+      ...Object.keys(m.params).map((p) => `model.params.${p}`),
+      ...SETTINGS[state.rule.kind]!.map((s) => `rule.${s}`),
+      "rule.surveyLag",
+    ];
   }
 
   function renderModel(): void {
@@ -95,53 +120,109 @@ export function stabilityStep(root: HTMLElement): void {
       modelBox,
       el("legend", {}, `Model: ${m.family}${m.delay ? `, delay ${m.delay}` : ""}`),
       ...Object.entries(m.params).map(([k, v]) =>
-        el("label", { class: "field" }, `${k} `, el("input", { type: "number", value: String(Number(v.toPrecision(6))), step: "any", "data-param": k, oninput: (e: Event) => {
-          const x = Number((e.target as HTMLInputElement).value);
-          if (Number.isFinite(x)) {
-            m.params[k] = x;
-            schedule();
-          }
-        } })),
+        el(
+          "label",
+          { class: "field" },
+          `${k} `,
+          el("input", {
+            type: "number",
+            value: String(Number(v.toPrecision(6))),
+            step: "any",
+            "data-param": k,
+            oninput: (e: Event) => {
+              const x = Number((e.target as HTMLInputElement).value);
+              if (Number.isFinite(x)) {
+                m.params[k] = x;
+                schedule();
+              }
+            },
+          }),
+        ),
       ),
     );
   }
 
   function renderRule(): void {
     const r = state.rule;
-    const kind = el("select", { id: "rule-kind", onchange: () => {
-      state.rule = { ...defaults(kind.value, K()), surveyLag: r.surveyLag ?? 0, timing: r.timing ?? "after" };
-      renderRule();
-      fillMarginParams();
-      schedule();
-    } }, ...KINDS.map((k) => el("option", { value: k, selected: k === r.kind }, k)));
+    const kind = el(
+      "select",
+      {
+        id: "rule-kind",
+        onchange: () => {
+          state.rule = {
+            ...defaults(kind.value, K()),
+            surveyLag: r.surveyLag ?? 0,
+            timing: r.timing ?? "after",
+          };
+          renderRule();
+          fillMarginParams();
+          schedule();
+        },
+      },
+      ...KINDS.map((k) => el("option", { value: k, selected: k === r.kind }, k)),
+    );
     const sliders = SETTINGS[r.kind]!.map((name) => {
       const { min, max, step } = range(name, K());
       const value = Number(r[name] ?? min);
       const out = el("output", { for: `rule-${name}`, id: `rule-${name}-value` }, fmt(value));
-      const input = el("input", { type: "range", id: `rule-${name}`, min, max: Math.max(max, value), step, value: String(value), oninput: () => {
-        state.rule = { ...state.rule, [name]: Number(input.value) };
-        out.textContent = fmt(Number(input.value));
-        schedule();
-      } });
+      const input = el("input", {
+        type: "range",
+        id: `rule-${name}`,
+        min,
+        max: Math.max(max, value),
+        step,
+        value: String(value),
+        oninput: () => {
+          state.rule = { ...state.rule, [name]: Number(input.value) };
+          out.textContent = fmt(Number(input.value));
+          schedule();
+        },
+      });
       return el("div", { class: "slider" }, el("label", { for: `rule-${name}` }, name), input, out);
     });
-    const lagOut = el("output", { for: "rule-surveyLag", id: "rule-surveyLag-value" }, String(r.surveyLag ?? 0));
-    const lag = el("input", { type: "range", id: "rule-surveyLag", min: 0, max: 5, step: 1, value: String(r.surveyLag ?? 0), oninput: () => {
-      state.rule = { ...state.rule, surveyLag: Number(lag.value) };
-      lagOut.textContent = lag.value;
-      schedule();
-    } });
-    const when = el("select", { id: "rule-timing", onchange: () => {
-      state.rule = { ...state.rule, timing: when.value };
-      schedule();
-    } }, el("option", { value: "after", selected: r.timing !== "before" }, "after reproduction"), el("option", { value: "before", selected: r.timing === "before" }, "before reproduction"));
+    const lagOut = el(
+      "output",
+      { for: "rule-surveyLag", id: "rule-surveyLag-value" },
+      String(r.surveyLag ?? 0),
+    );
+    const lag = el("input", {
+      type: "range",
+      id: "rule-surveyLag",
+      min: 0,
+      max: 5,
+      step: 1,
+      value: String(r.surveyLag ?? 0),
+      oninput: () => {
+        state.rule = { ...state.rule, surveyLag: Number(lag.value) };
+        lagOut.textContent = lag.value;
+        schedule();
+      },
+    });
+    const when = el(
+      "select",
+      {
+        id: "rule-timing",
+        onchange: () => {
+          state.rule = { ...state.rule, timing: when.value };
+          schedule();
+        },
+      },
+      el("option", { value: "after", selected: r.timing !== "before" }, "after reproduction"),
+      el("option", { value: "before", selected: r.timing === "before" }, "before reproduction"),
+    );
     show(
       ruleBox,
       el("legend", {}, "Harvest rule"),
       el("label", { for: "rule-kind" }, "Rule "),
       kind,
       ...sliders,
-      el("div", { class: "slider" }, el("label", { for: "rule-surveyLag" }, "survey lag (years)"), lag, lagOut),
+      el(
+        "div",
+        { class: "slider" },
+        el("label", { for: "rule-surveyLag" }, "survey lag (years)"),
+        lag,
+        lagOut,
+      ),
       el("label", { for: "rule-timing" }, "Catch taken "),
       when,
     );
@@ -172,7 +253,11 @@ export function stabilityStep(root: HTMLElement): void {
     busy = true;
     const t0 = performance.now();
     try {
-      const r = await postJson<{ result: Stability }>("/api/v1/analyses", { kind: "stability", scenario: spec, store: false });
+      const r = await postJson<{ result: Stability }>("/api/v1/analyses", {
+        kind: "stability",
+        scenario: spec,
+        store: false,
+      });
       render(r.result);
       const ms = performance.now() - t0;
       timing.textContent = `updated in ${ms.toFixed(0)} ms`;
@@ -190,17 +275,35 @@ export function stabilityStep(root: HTMLElement): void {
 
   function render(s: Stability): void {
     const op = s.operating === null ? null : s.equilibria[s.operating]!;
-    if (!op) show(verdict, el("p", { class: "verdict bad" }, "No positive equilibrium: under this rule the stock collapses."));
+    if (!op)
+      show(
+        verdict,
+        el("p", { class: "verdict bad" }, "No positive equilibrium: under this rule the stock collapses."),
+      );
     else {
       const good = op.verdict.kind.startsWith("stable");
-      show(verdict, el("p", { class: `verdict ${good ? "good" : "bad"}`, "data-kind": op.verdict.kind }, `${op.verdict.label} at N* = ${fmt(op.equilibrium.abundance)}`), el("p", {}, op.verdict.meaning));
+      show(
+        verdict,
+        el(
+          "p",
+          { class: `verdict ${good ? "good" : "bad"}`, "data-kind": op.verdict.kind },
+          `${op.verdict.label} at N* = ${fmt(op.equilibrium.abundance)}`,
+        ),
+        el("p", {}, op.verdict.meaning),
+      );
     }
     show(
       eqTable,
       table(
         "Equilibria of the closed loop",
         ["equilibrium", "verdict", "|λ| dominant", "return time (y)", "period (y)"],
-        s.equilibria.map((e) => [e.equilibrium.abundance, e.verdict.label, e.verdict.dominantModulus, e.verdict.returnTime, e.verdict.period]),
+        s.equilibria.map((e) => [
+          e.equilibrium.abundance,
+          e.verdict.label,
+          e.verdict.dominantModulus,
+          e.verdict.returnTime,
+          e.verdict.period,
+        ]),
         "equilibria-table",
       ),
     );
@@ -211,10 +314,25 @@ export function stabilityStep(root: HTMLElement): void {
     const spec = scenarioSpec();
     if (!spec || !marginParam.value) return;
     try {
-      const r = await postJson<{ result: Margin }>("/api/v1/analyses", { kind: "margin", scenario: spec, parameter: marginParam.value, store: false });
+      const r = await postJson<{ result: Margin }>("/api/v1/analyses", {
+        kind: "margin",
+        scenario: spec,
+        parameter: marginParam.value,
+        store: false,
+      });
       const m = r.result;
-      const side = (word: string, s: Margin["increase"]) => (s.boundary === null ? `${word}: no change up to ${fmt(s.searchedTo)}` : `${word}: ${m.stableNow ? "stability is lost" : "stability is gained"} at ${fmt(s.boundary)} (${s.kind})`);
-      show(marginOut, `${m.parameter} is ${fmt(m.current)}. `, side("Raising it", m.increase), "; ", side("lowering it", m.decrease), ".");
+      const side = (word: string, s: Margin["increase"]) =>
+        s.boundary === null
+          ? `${word}: no change up to ${fmt(s.searchedTo)}`
+          : `${word}: ${m.stableNow ? "stability is lost" : "stability is gained"} at ${fmt(s.boundary)} (${s.kind})`;
+      show(
+        marginOut,
+        `${m.parameter} is ${fmt(m.current)}. `,
+        side("Raising it", m.increase),
+        "; ",
+        side("lowering it", m.decrease),
+        ".",
+      );
     } catch (e) {
       show(marginOut, errorBox(e));
     }
@@ -225,7 +343,12 @@ export function stabilityStep(root: HTMLElement): void {
     const spec = scenarioSpec();
     if (!spec || !state.fitId) return show(robustOut);
     try {
-      const r = await postJson<{ result: { summary: string } }>("/api/v1/analyses", { kind: "robust", scenario: spec, fitId: state.fitId, store: false });
+      const r = await postJson<{ result: { summary: string } }>("/api/v1/analyses", {
+        kind: "robust",
+        scenario: spec,
+        fitId: state.fitId,
+        store: false,
+      });
       show(robustOut, el("strong", {}, "Across the fitted models: "), `${r.result.summary}.`);
     } catch (e) {
       show(robustOut, errorBox(e));
@@ -250,9 +373,23 @@ export function stabilityStep(root: HTMLElement): void {
     return Number(state.rule[path.slice(5)] ?? 0);
   }
 
-  function sweepForm(id: string, onRun: (axes: { path: string; from: number; to: number; count: number }[]) => void, two: boolean): HTMLElement {
+  function sweepForm(
+    id: string,
+    onRun: (axes: { path: string; from: number; to: number; count: number }[]) => void,
+    two: boolean,
+  ): HTMLElement {
     const axes = (two ? ["x", "y"] : ["axis"]).map((a, i) => {
-      const sel = el("select", { id: `${id}-${a}-path` }, ...paths().map((p, k) => el("option", { value: p, selected: k === (two ? (i === 0 ? 0 : paths().indexOf(MAIN[state.rule.kind]!)) : 0) }, p)));
+      const sel = el(
+        "select",
+        { id: `${id}-${a}-path` },
+        ...paths().map((p, k) =>
+          el(
+            "option",
+            { value: p, selected: k === (two ? (i === 0 ? 0 : paths().indexOf(MAIN[state.rule.kind]!)) : 0) },
+            p,
+          ),
+        ),
+      );
       const from = el("input", { type: "number", id: `${id}-${a}-from`, step: "any" });
       const to = el("input", { type: "number", id: `${id}-${a}-to`, step: "any" });
       const fill = () => {
@@ -264,14 +401,43 @@ export function stabilityStep(root: HTMLElement): void {
       fill();
       return { a, sel, from, to };
     });
-    const count = el("input", { type: "number", id: `${id}-count`, min: 5, max: two ? 200 : 1000, value: two ? "40" : "200" });
+    const count = el("input", {
+      type: "number",
+      id: `${id}-count`,
+      min: 5,
+      max: two ? 200 : 1000,
+      value: two ? "40" : "200",
+    });
     return el(
       "div",
       { class: "row" },
-      ...axes.flatMap(({ a, sel, from, to }) => [el("label", { for: sel.id }, two ? `${a} ` : "parameter "), sel, el("label", { for: from.id }, "from"), from, el("label", { for: to.id }, "to"), to]),
+      ...axes.flatMap(({ a, sel, from, to }) => [
+        el("label", { for: sel.id }, two ? `${a} ` : "parameter "),
+        sel,
+        el("label", { for: from.id }, "from"),
+        from,
+        el("label", { for: to.id }, "to"),
+        to,
+      ]),
       el("label", { for: count.id }, two ? "cells per side" : "values"),
       count,
-      el("button", { type: "button", id: `${id}-run`, onclick: () => onRun(axes.map(({ sel, from, to }) => ({ path: sel.value, from: Number(from.value), to: Number(to.value), count: Number(count.value) }))) }, two ? "Draw the regime map" : "Draw the diagram"),
+      el(
+        "button",
+        {
+          type: "button",
+          id: `${id}-run`,
+          onclick: () =>
+            onRun(
+              axes.map(({ sel, from, to }) => ({
+                path: sel.value,
+                from: Number(from.value),
+                to: Number(to.value),
+                count: Number(count.value),
+              })),
+            ),
+        },
+        two ? "Draw the regime map" : "Draw the diagram",
+      ),
     );
   }
 
@@ -283,24 +449,45 @@ export function stabilityStep(root: HTMLElement): void {
     show(
       bifArea,
       el("h3", {}, "Bifurcation diagram"),
-      sweepForm("bif", async ([axis]) => {
-        const done = await runJob(bifJob, "Diagram", () => postJson<{ job: JobView }>("/api/v1/analyses", { kind: "bifurcation", scenario: scenarioSpec(), axis }));
-        if (!done?.links.result) return;
-        const r = await getJson<{ result: Parameters<typeof bifurcationChart>[1] }>(done.links.result);
-        bifurcationChart(bifChart, r.result, current(axis!.path));
-      }, false),
+      sweepForm(
+        "bif",
+        async ([axis]) => {
+          const done = await runJob(bifJob, "Diagram", () =>
+            postJson<{ job: JobView }>("/api/v1/analyses", {
+              kind: "bifurcation",
+              scenario: scenarioSpec(),
+              axis,
+            }),
+          );
+          if (!done?.links.result) return;
+          const r = await getJson<{ result: Parameters<typeof bifurcationChart>[1] }>(done.links.result);
+          bifurcationChart(bifChart, r.result, current(axis!.path));
+        },
+        false,
+      ),
       bifJob,
       bifChart,
     );
     show(
       mapArea,
       el("h3", {}, "Regime map"),
-      sweepForm("map", async ([x, y]) => {
-        const done = await runJob(mapJob, "Regime map", () => postJson<{ job: JobView }>("/api/v1/analyses", { kind: "regime-map", scenario: scenarioSpec(), x, y: { ...y!, count: x!.count } }));
-        if (!done?.links.result) return;
-        const r = await getJson<{ result: Parameters<typeof regimeChart>[1] }>(done.links.result);
-        regimeChart(mapChart, r.result, { x: current(x!.path), y: current(y!.path) });
-      }, true),
+      sweepForm(
+        "map",
+        async ([x, y]) => {
+          const done = await runJob(mapJob, "Regime map", () =>
+            postJson<{ job: JobView }>("/api/v1/analyses", {
+              kind: "regime-map",
+              scenario: scenarioSpec(),
+              x,
+              y: { ...y!, count: x!.count },
+            }),
+          );
+          if (!done?.links.result) return;
+          const r = await getJson<{ result: Parameters<typeof regimeChart>[1] }>(done.links.result);
+          regimeChart(mapChart, r.result, { x: current(x!.path), y: current(y!.path) });
+        },
+        true,
+      ),
       mapJob,
       mapChart,
     );
@@ -309,11 +496,21 @@ export function stabilityStep(root: HTMLElement): void {
   show(
     root,
     el("h2", {}, "Stability"),
-    el("p", { class: "lead" }, "Move the sliders: the verdict, the equilibria and the eigenvalues follow. A root outside the unit circle means the equilibrium is unstable."),
+    el(
+      "p",
+      { class: "lead" },
+      "Move the sliders: the verdict, the equilibria and the eigenvalues follow. A root outside the unit circle means the equilibrium is unstable.",
+    ),
     needModel,
     el("div", { class: "two" }, el("div", {}, modelBox, ruleBox), el("div", {}, verdict, timing, eigen)),
     eqTable,
-    el("div", { class: "row" }, el("label", { for: "margin-parameter" }, "Stability margin in"), marginParam, keep),
+    el(
+      "div",
+      { class: "row" },
+      el("label", { for: "margin-parameter" }, "Stability margin in"),
+      marginParam,
+      keep,
+    ),
     marginOut,
     robustOut,
     bifArea,
