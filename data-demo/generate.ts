@@ -40,7 +40,7 @@ function perch(): string {
     const missing = t === 7 || t === 21; // two survey years lost to storms
     lines.push(`${1994 + t},${missing ? "" : index.toFixed(1)},${catches[t]},${stocking[t]},0.2`);
   }
-  return lines.join("\n") + "\n";
+  return `${lines.join("\n")}\n`;
 }
 
 /** Island deer: Beverton–Holt R0 = 1.6, K = 2,400 deer; culls 60–420 a year; full counts with Poisson error. */
@@ -58,7 +58,7 @@ function deer(): string {
     const step = projectThroughCatches(model, "before", n, [cull, 0], [0, 0])!;
     n = step.abundance[1]! * Math.exp(0.05 * standardNormal(u));
   }
-  return lines.join("\n") + "\n";
+  return `${lines.join("\n")}\n`;
 }
 
 writeFileSync(here("./tarnvell-perch/series.csv"), perch());

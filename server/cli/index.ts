@@ -47,7 +47,9 @@ const OPTIONS = {
 } as const;
 
 export async function main(argv: string[]): Promise<number> {
-  let parsed;
+  let parsed: ReturnType<
+    typeof parseArgs<{ args: string[]; options: typeof OPTIONS; allowPositionals: true; strict: true }>
+  >;
   try {
     parsed = parseArgs({ args: argv, options: OPTIONS, allowPositionals: true, strict: true });
   } catch (e) {

@@ -10,5 +10,5 @@ export function csvField(v: Cell): string {
 }
 
 export function toCsv(header: readonly string[], rows: readonly (readonly Cell[])[]): string {
-  return [header, ...rows].map((r) => r.map(csvField).join(",")).join("\r\n") + "\r\n";
+  return `${[header, ...rows].map((r) => r.map(csvField).join(",")).join("\r\n")}\r\n`;
 }

@@ -38,13 +38,11 @@ export function jobRoutes(ctx: AppContext): Router {
   r.get("/jobs/:id/events", (req, res) => {
     const job = ctx.repo.getJob(req.params.id);
     if (!job) return sendProblem(res, notFound("job", req.params.id));
-    res
-      .status(200)
-      .set({
-        "Content-Type": "text/event-stream; charset=utf-8",
-        "Cache-Control": "no-cache",
-        Connection: "keep-alive",
-      });
+    res.status(200).set({
+      "Content-Type": "text/event-stream; charset=utf-8",
+      "Cache-Control": "no-cache",
+      Connection: "keep-alive",
+    });
     res.flushHeaders();
     const send = (event: string, data: unknown) =>
       res.write(`event: ${event}\ndata: ${JSON.stringify(data)}\n\n`);

@@ -323,7 +323,7 @@ export class Repository {
     let stored = false;
     this.db.transaction(() => {
       const job = this.st.getJob.get(jobId) as Row | undefined;
-      if (!job || job.status !== "running") return;
+      if (job?.status !== "running") return;
       this.writeResult(id, kind, JSON.stringify(request), JSON.stringify(result), provenance, createdAt);
       this.st.jobDone.run(id, createdAt, jobId);
       stored = true;

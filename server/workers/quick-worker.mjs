@@ -12,7 +12,7 @@ parentPort.on("message", (batch) => {
     try {
       answers.push(runQuickTask(task));
     } catch (e) {
-      answers.push({ id: task.id, ok: false, error: String(e && e.stack ? e.stack : e) });
+      answers.push({ id: task.id, ok: false, error: String(e?.stack ? e.stack : e) });
     }
   }
   parentPort.postMessage(answers);

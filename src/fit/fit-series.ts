@@ -156,7 +156,7 @@ export function summarise(
         Number.isFinite(a) && Number.isFinite(b) ? { lower: Math.min(a, b), upper: Math.max(a, b) } : null;
     }
   });
-  const atBound = p.names.filter((n, i) => p.transforms[i]!.atBound(values[i]!));
+  const atBound = p.names.filter((_n, i) => p.transforms[i]!.atBound(values[i]!));
   const k = p.estimated;
   const n = p.observations;
   const aicc = 2 * k + 2 * ev.nll + (2 * k * (k + 1)) / Math.max(n - k - 1, 1);

@@ -87,7 +87,7 @@ function readSeries(text: string, collect: Issue[] | null): Result<Series> {
   const stockCol = header.indexOf("stocking");
   const cvCol = header.indexOf("cv");
   const extra = header
-    .map((h, i) => i)
+    .map((_h, i) => i)
     .filter((i) => ![yearCol, countCol, catchCol, stockCol, cvCol].includes(i));
 
   type Row = {

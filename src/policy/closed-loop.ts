@@ -164,7 +164,7 @@ class ClosedLoopMap implements ClosedLoop {
       taken = aim < n ? aim : n;
       spawners = n - taken;
       const dens = T === 0 ? spawners : x[bStart + T - 1]!;
-      let p =
+      const p =
         spawners > 0
           ? noise
             ? this.noisyProduction(spawners, dens, noise.logProcess)

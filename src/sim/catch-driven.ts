@@ -22,7 +22,7 @@ export function projectThroughCatches(
   stocking: readonly number[],
   buffers?: { abundance: number[]; base: number[] },
 ): { abundance: number[]; shortfall: number } | null {
-  const { growth, params, delay: T } = model;
+  const { params, delay: T } = model;
   const years = catches.length;
   // Callers that project thousands of times (a fit's objective) pass reusable buffers.
   const abundance = buffers?.abundance ?? new Array<number>(years);

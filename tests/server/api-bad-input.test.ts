@@ -31,8 +31,7 @@ describe("malformed and oversized bodies", () => {
   it("a JSON body over 1 MB is 413, a CSV over 2 MB too", async () => {
     const big = JSON.stringify({ name: "x", spec: { pad: "x".repeat(1_100_000) } });
     problem(await api.post("/api/v1/scenarios").set("Content-Type", "application/json").send(big), 413);
-    const csv =
-      "year,count\n" + Array.from({ length: 200_000 }, (_, i) => `${1000 + i},123456.789`).join("\n");
+    const csv = `year,count\n${Array.from({ length: 200_000 }, (_, i) => `${1000 + i},123456.789`).join("\n")}`;
     problem(await api.post("/api/v1/series?name=big").set("Content-Type", "text/csv").send(csv), 413);
   });
   it("a body that is not an object, or not JSON, is refused", async () => {

@@ -40,11 +40,9 @@ describe("jobs", () => {
     const server = rt.app.listen(0, "127.0.0.1");
     await new Promise((r) => server.once("listening", r));
     const port = (server.address() as { port: number }).port;
-    const p = await api
-      .post("/api/v1/projections")
-      .send({
-        scenario: { ...scenarioSpec, uncertainty: { ...scenarioSpec.uncertainty, replicates: 200_000 } },
-      });
+    const p = await api.post("/api/v1/projections").send({
+      scenario: { ...scenarioSpec, uncertainty: { ...scenarioSpec.uncertainty, replicates: 200_000 } },
+    });
     const events = await readEvents(`http://127.0.0.1:${port}/api/v1/jobs/${p.body.job.id}/events`);
     server.close();
     expect(events[0]!.event).toBe("status");
@@ -63,15 +61,13 @@ describe("jobs", () => {
 
   it("can be cancelled: 204, status cancelled, no result stored; cancelling again is 409", async () => {
     const before = (await api.get("/api/v1/projections")).body.items.length;
-    const p = await api
-      .post("/api/v1/projections")
-      .send({
-        scenario: {
-          ...scenarioSpec,
-          horizon: 200,
-          uncertainty: { ...scenarioSpec.uncertainty, replicates: 1_000_000 },
-        },
-      });
+    const p = await api.post("/api/v1/projections").send({
+      scenario: {
+        ...scenarioSpec,
+        horizon: 200,
+        uncertainty: { ...scenarioSpec.uncertainty, replicates: 1_000_000 },
+      },
+    });
     const d = await api.delete(`/api/v1/jobs/${p.body.job.id}`);
     expect(d.status).toBe(204);
     const job = await finished(rt, api, p.body.job.id);
@@ -84,14 +80,12 @@ describe("jobs", () => {
   });
 
   it("a job whose work is rejected by the core ends failed, with the issue", async () => {
-    const p = await api
-      .post("/api/v1/analyses")
-      .send({
-        kind: "regime-map",
-        scenario: scenarioSpec,
-        x: { path: "model.params.r", from: 0.5, to: 3, count: 5 },
-        y: { path: "model.params.r", from: 0.5, to: 1, count: 5 },
-      });
+    const p = await api.post("/api/v1/analyses").send({
+      kind: "regime-map",
+      scenario: scenarioSpec,
+      x: { path: "model.params.r", from: 0.5, to: 3, count: 5 },
+      y: { path: "model.params.r", from: 0.5, to: 1, count: 5 },
+    });
     const job = await finished(rt, api, p.body.job.id);
     expect(job).toMatchObject({ status: "failed", error: { code: "constraint_violated", field: "y.path" } });
   });

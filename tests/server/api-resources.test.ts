@@ -38,15 +38,13 @@ describe("series", () => {
     expect((await api.delete(`/api/v1/series/${r.body.id}`)).status).toBe(404);
   });
   it("fits every family to a stored series as a job, with the series hash as provenance", async () => {
-    const r = await api
-      .post("/api/v1/fits")
-      .send({
-        seriesId: id,
-        families: ["beverton-holt", "ricker"],
-        delays: [0],
-        likelihood: "poisson",
-        timing: "before",
-      });
+    const r = await api.post("/api/v1/fits").send({
+      seriesId: id,
+      families: ["beverton-holt", "ricker"],
+      delays: [0],
+      likelihood: "poisson",
+      timing: "before",
+    });
     expect(r.status).toBe(202);
     const job = await finished(rt, api, r.body.job.id);
     expect(job.status).toBe("done");
@@ -65,18 +63,16 @@ describe("series", () => {
     expect((await api.get("/api/v1/fits")).body.items).toHaveLength(1);
     // The robust verdict of a rule over the fitted models, weighted by Akaike weight
     // (src/sim/robust-verdict.ts): the weights of the classes sum to one and match the fits'.
-    const rv = await api
-      .post("/api/v1/analyses")
-      .send({
-        kind: "robust",
-        fitId: fit.body.id,
-        scenario: {
-          model: { family: "beverton-holt", params: { R0: 1.6, K: 2400 } },
-          rule: { kind: "constant-catch", quota: 180, timing: "before" },
-          start: 780,
-          horizon: 20,
-        },
-      });
+    const rv = await api.post("/api/v1/analyses").send({
+      kind: "robust",
+      fitId: fit.body.id,
+      scenario: {
+        model: { family: "beverton-holt", params: { R0: 1.6, K: 2400 } },
+        rule: { kind: "constant-catch", quota: 180, timing: "before" },
+        start: 780,
+        horizon: 20,
+      },
+    });
     expect(rv.status).toBe(201);
     const w = rv.body.result.weights as Record<string, number>;
     expect(Object.values(w).reduce((a, b) => a + b, 0)).toBeCloseTo(1, 12);
@@ -179,25 +175,21 @@ describe("analyses, projections and comparisons", () => {
     expect((await api.get("/api/v1/analyses")).body.items.length).toBe(before);
   });
   it("bifurcation diagrams and regime maps run as jobs", async () => {
-    const b = await api
-      .post("/api/v1/analyses")
-      .send({
-        kind: "bifurcation",
-        scenarioId,
-        axis: { path: "model.params.r", from: 0.5, to: 3, count: 40 },
-      });
+    const b = await api.post("/api/v1/analyses").send({
+      kind: "bifurcation",
+      scenarioId,
+      axis: { path: "model.params.r", from: 0.5, to: 3, count: 40 },
+    });
     expect(b.status).toBe(202);
     const jb = await finished(rt, api, b.body.job.id);
     const diagram = (await api.get((jb.links as { result: string }).result)).body.result;
     expect(diagram.values).toHaveLength(40);
-    const m = await api
-      .post("/api/v1/analyses")
-      .send({
-        kind: "regime-map",
-        scenarioId,
-        x: { path: "model.params.r", from: 0.5, to: 3, count: 12 },
-        y: { path: "rule.maxRate", from: 0, to: 0.6, count: 10 },
-      });
+    const m = await api.post("/api/v1/analyses").send({
+      kind: "regime-map",
+      scenarioId,
+      x: { path: "model.params.r", from: 0.5, to: 3, count: 12 },
+      y: { path: "rule.maxRate", from: 0, to: 0.6, count: 10 },
+    });
     const jm = await finished(rt, api, m.body.job.id);
     const map = (await api.get((jm.links as { result: string }).result)).body.result;
     expect(map.regimes).toHaveLength(120);

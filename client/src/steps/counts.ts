@@ -38,8 +38,11 @@ export function countsStep(root: HTMLElement): void {
       tabindex: "0",
       role: "button",
       "aria-describedby": "drop-help",
-      onkeydown: (e: KeyboardEvent) =>
-        (e.key === "Enter" || e.key === " ") && (e.preventDefault(), file.click()),
+      onkeydown: (e: KeyboardEvent) => {
+        if (e.key !== "Enter" && e.key !== " ") return;
+        e.preventDefault();
+        file.click();
+      },
     },
     el(
       "p",

@@ -115,7 +115,10 @@ export function stabilityStep(root: HTMLElement): void {
 
   function renderModel(): void {
     const m = state.model;
-    if (!m) return show(modelBox);
+    if (!m) {
+      show(modelBox);
+      return;
+    }
     show(
       modelBox,
       el("legend", {}, `Model: ${m.family}${m.delay ? `, delay ${m.delay}` : ""}`),
