@@ -5,15 +5,13 @@ export { MAX_ABUNDANCE, type ParamInfo } from "./params.js";
 
 // Growth models
 export {
-  FAMILY_IDS,
   production,
   productionSlope,
   densityTerm,
-  type FamilyId,
   type GrowthFamily,
   type Params,
 } from "./models/growth-family.js";
-export { families } from "./models/families.js";
+export { families, FAMILY_IDS, type FamilyId } from "./models/families.js";
 export {
   parseModel,
   withParams,
@@ -39,7 +37,14 @@ export {
 } from "./models/stock-recruitment.js";
 
 // Harvest and stocking rules
-export { RULE_KINDS, type HarvestRule, type RuleKind } from "./policy/harvest-rule.js";
+export type { HarvestRule } from "./policy/harvest-rule.js";
+export {
+  RULE_CATALOGUE,
+  RULE_KINDS,
+  TIMING_LABELS,
+  type RuleKind,
+  type RuleKindInfo,
+} from "./policy/rule-catalogue.js";
 export {
   parseRule,
   ruleSpecSchema,

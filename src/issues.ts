@@ -23,6 +23,14 @@ export type Issue =
   | { code: "unknown_option"; field: string; value: string; allowed: readonly string[] }
   | { code: "unknown_field"; field: string }
   | { code: "constraint_violated"; field: string; constraint: string }
+  | {
+      code: "settings_out_of_order";
+      field: string;
+      value: number;
+      other: string;
+      otherValue: number;
+      relation: "below" | "above";
+    }
   | { code: "no_finite_msy"; field: string; value: number; family: string }
   | { code: "csv_malformed"; row: number; detail: string }
   | { code: "csv_missing_column"; column: string; allowed: readonly string[] }
@@ -61,6 +69,8 @@ export function describeIssue(issue: Issue): string {
       return `${issue.field} is not a recognised field`;
     case "constraint_violated":
       return `${issue.field}: ${issue.constraint}`;
+    case "settings_out_of_order":
+      return `${issue.field} = ${issue.value} must be ${issue.relation} ${issue.other} = ${issue.otherValue}`;
     case "no_finite_msy":
       return `the ${issue.family} model has no finite MSY at ${issue.field} = ${issue.value} (production grows without bound at low stock)`;
     case "csv_malformed":

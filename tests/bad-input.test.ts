@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { describeIssue } from "../src/issues.js";
+import { describeIssue, type Issue } from "../src/issues.js";
 import { parseModel } from "../src/models/model-spec.js";
 import { parseRule } from "../src/policy/rule-spec.js";
 import { parseScenario } from "../src/sim/scenario.js";
@@ -77,7 +77,17 @@ describe("model spec validation", () => {
 
   it("a cross-parameter constraint (Allee threshold A < K) is checked", () => {
     const r = parseModel({ family: "allee-ricker", params: { r: 1, K: 100, A: 150 } });
-    expect(r.ok || r.issue).toMatchObject({ code: "constraint_violated", field: "model.params.A" });
+    expect(r.ok || r.issue).toEqual({
+      code: "settings_out_of_order",
+      field: "model.params.A",
+      value: 150,
+      other: "model.params.K",
+      otherValue: 100,
+      relation: "below",
+    });
+    expect(describeIssue((r as { issue: Issue }).issue)).toBe(
+      "model.params.A = 150 must be below model.params.K = 100",
+    );
   });
 });
 
@@ -121,7 +131,14 @@ describe("rule spec validation", () => {
 
   it("threshold triggers out of order are refused", () => {
     const r = parseRule({ kind: "threshold", lowerTrigger: 500, upperTrigger: 200, maxRate: 0.2 });
-    expect(r.ok || r.issue).toMatchObject({ code: "constraint_violated", field: "rule.upperTrigger" });
+    expect(r.ok || r.issue).toEqual({
+      code: "settings_out_of_order",
+      field: "rule.upperTrigger",
+      value: 200,
+      other: "rule.lowerTrigger",
+      otherValue: 500,
+      relation: "above",
+    });
   });
 
   it("a missing setting of the chosen rule is named", () => {

@@ -3,7 +3,7 @@
 import { readFileSync, writeFileSync } from "node:fs";
 import { compareModels } from "../../src/fit/compare-models.js";
 import { parseSeriesCsv } from "../../src/fit/series.js";
-import { FAMILY_IDS, type FamilyId } from "../../src/models/growth-family.js";
+import { FAMILY_IDS, type FamilyId } from "../../src/models/families.js";
 import { describeIssue, type Issue } from "../../src/issues.js";
 import { stabilityMargin } from "../../src/equilibria/margin.js";
 import { analyseStability } from "../../src/equilibria/stability.js";

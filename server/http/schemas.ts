@@ -4,7 +4,7 @@
 import { z } from "zod";
 import { FIT_METHODS } from "../../src/fit/fit-model.js";
 import { LIKELIHOODS } from "../../src/fit/likelihood.js";
-import { FAMILY_IDS } from "../../src/models/growth-family.js";
+import { FAMILY_IDS } from "../../src/models/families.js";
 import { modelSpecSchema } from "../../src/models/model-spec.js";
 import { ruleSpecSchema, TIMINGS } from "../../src/policy/rule-spec.js";
 import { MAX_COMPARED_RULES } from "../../src/sim/rule-comparison.js";

@@ -1,4 +1,5 @@
 import type { Model } from "../models/model-spec.js";
+import { isAbundanceKind } from "../params.js";
 import { closedLoop, type ClosedLoop } from "../policy/closed-loop.js";
 import type { Rule } from "../policy/rule-spec.js";
 import { ok, type Result } from "../result.js";
@@ -182,8 +183,7 @@ function emptySide(current: number): MarginSide {
 
 /** The far end of the search in one direction, inside the allowed range. */
 function searchEnd(ax: ParameterAxis, dir: 1 | -1, K: number): number {
-  const abundanceUnit =
-    /^(rule\.(quota|escapement|lowerTrigger|upperTrigger|stocking)|model\.params\.(K|A))$/.test(ax.path);
+  const abundanceUnit = isAbundanceKind(ax.info.unitKind);
   const inside = (v: number) =>
     dir > 0
       ? ax.maxInclusive

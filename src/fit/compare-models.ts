@@ -1,4 +1,4 @@
-import { FAMILY_IDS, type FamilyId } from "../models/growth-family.js";
+import { FAMILY_IDS, type FamilyId } from "../models/families.js";
 import { fail, ok, type Result } from "../result.js";
 import { fitSeries, type SeriesFit } from "./fit-series.js";
 import type { FitOptions } from "./fit-model.js";

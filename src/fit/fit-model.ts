@@ -1,5 +1,6 @@
 import { families } from "../models/families.js";
-import { FAMILY_IDS, type FamilyId, type Params } from "../models/growth-family.js";
+import { FAMILY_IDS, type FamilyId } from "../models/families.js";
+import type { Params } from "../models/growth-family.js";
 import { MAX_DELAY, type Model } from "../models/model-spec.js";
 import type { Timing } from "../policy/rule-spec.js";
 import { fail, ok, type Result } from "../result.js";
@@ -142,7 +143,7 @@ export function fitProblem(series: Series, options: FitOptions): Result<FitProbl
     if (p.name === "r") return Math.min(Math.max(start.r, p.min + 0.05), Math.min(p.max * 0.9, 2.5));
     if (p.name === "R0") return Math.min(Math.max(Math.exp(start.r), 1.2), 50);
     if (p.name === "A") return 0.1; // as a fraction of K
-    return p.typical;
+    return p.default;
   });
   if (opts.method === "observation")
     natural0.push(absolute ? 0.7 * natural0[familyNames.indexOf("K")]! : y[observed[0]!]!);

@@ -1,7 +1,7 @@
 import { analyseStability } from "../equilibria/stability.js";
 import type { StabilityKind } from "../equilibria/classify.js";
 import { families } from "../models/families.js";
-import type { FamilyId } from "../models/growth-family.js";
+import type { FamilyId } from "../models/families.js";
 import { closedLoop } from "../policy/closed-loop.js";
 import { msy } from "../policy/msy.js";
 import { parseRule } from "../policy/rule-spec.js";

@@ -1,4 +1,4 @@
-import { carryingCapacity, MAX_ABUNDANCE, param } from "../params.js";
+import { carryingCapacity, growthRate, MAX_ABUNDANCE, param } from "../params.js";
 import type { GrowthFamily } from "./growth-family.js";
 
 export interface AlleeRickerParams {
@@ -24,27 +24,24 @@ export interface AlleeRickerParams {
  */
 export const alleeRicker: GrowthFamily<AlleeRickerParams> = {
   id: "allee-ricker",
-  title: "Ricker with strong Allee effect",
+  label: "Ricker with strong Allee effect",
   equation: "N[t+1] = N[t]·exp(r·(1 − N[t−T]/K)·(N[t−T]/A − 1))",
   source: "Lewis & Kareiva (1993). Theor. Popul. Biol. 43: 141–158; Courchamp et al. (2008)",
   params: [
-    param("r", "per year", "strength of per-capita growth", { min: 0, max: 10 }, 0.5),
+    growthRate("strength of per-capita growth", 10, 0.5),
     carryingCapacity,
-    param(
-      "A",
-      "same unit as the abundance",
-      "Allee threshold: below it the stock declines",
-      { min: 0, max: MAX_ABUNDANCE },
-      200,
-    ),
+    param({
+      name: "A",
+      label: "Allee threshold A",
+      unitKind: "abundance",
+      description: "below it the stock declines",
+      range: { min: 0, max: MAX_ABUNDANCE },
+      default: 200,
+      defaultTimesK: 0.2,
+      sweep: [0, 0.9],
+    }),
   ],
-  constraints: [
-    {
-      field: "params.A",
-      text: "the Allee threshold A must be below the carrying capacity K",
-      holds: (p) => p.A < p.K,
-    },
-  ],
+  constraints: [{ lower: "A", upper: "K", field: "A" }],
   factor: (m, { r, K, A }) => Math.exp(r * (1 - m / K) * (m / A - 1)),
   logFactor: (m, { r, K, A }) => r * (1 - m / K) * (m / A - 1),
   factorSlope: (m, { r, K, A }) => {

@@ -1,4 +1,4 @@
-import { carryingCapacity, param } from "../params.js";
+import { carryingCapacity, maxReproduction } from "../params.js";
 import type { GrowthFamily } from "./growth-family.js";
 
 export interface BevertonHoltParams {
@@ -21,13 +21,10 @@ export interface BevertonHoltParams {
  */
 export const bevertonHolt: GrowthFamily<BevertonHoltParams> = {
   id: "beverton-holt",
-  title: "Beverton–Holt",
+  label: "Beverton–Holt",
   equation: "N[t+1] = R0·N[t] / (1 + (R0 − 1)·N[t−T]/K)",
   source: "Beverton, R. J. H. & Holt, S. J. (1957). Fishery Investigations Ser. II, 19",
-  params: [
-    param("R0", "dimensionless", "maximum per-capita reproduction (at low density)", { min: 1, max: 1e4 }, 3),
-    carryingCapacity,
-  ],
+  params: [maxReproduction, carryingCapacity],
   constraints: [],
   factor: (m, { R0, K }) => R0 / (1 + ((R0 - 1) * m) / K),
   factorSlope: (m, { R0, K }) => {

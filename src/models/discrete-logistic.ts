@@ -1,4 +1,4 @@
-import { carryingCapacity, param } from "../params.js";
+import { carryingCapacity, growthRate } from "../params.js";
 import type { GrowthFamily } from "./growth-family.js";
 
 export interface DiscreteLogisticParams {
@@ -21,10 +21,10 @@ export interface DiscreteLogisticParams {
  */
 export const discreteLogistic: GrowthFamily<DiscreteLogisticParams> = {
   id: "discrete-logistic",
-  title: "Discrete logistic",
+  label: "Discrete logistic",
   equation: "N[t+1] = N[t] + r·N[t]·(1 − N[t−T]/K)",
   source: "May, R. M. (1976). Nature 261: 459–467",
-  params: [param("r", "per year", "intrinsic rate of increase", { min: 0, max: 3 }, 1), carryingCapacity],
+  params: [growthRate("intrinsic rate of increase", 3, 1), carryingCapacity],
   constraints: [],
   factor: (m, { r, K }) => 1 + r * (1 - m / K),
   factorSlope: (_m, { r, K }) => -r / K,

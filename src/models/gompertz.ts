@@ -1,4 +1,4 @@
-import { carryingCapacity, param } from "../params.js";
+import { carryingCapacity, growthRate } from "../params.js";
 import type { GrowthFamily } from "./growth-family.js";
 
 export interface GompertzParams {
@@ -25,13 +25,10 @@ const FLOOR = GOMPERTZ_FLOOR;
  */
 export const gompertz: GrowthFamily<GompertzParams> = {
   id: "gompertz",
-  title: "Gompertz (log-linear)",
+  label: "Gompertz (log-linear)",
   equation: "N[t+1] = N[t]·exp(r·ln(K/N[t−T]))",
   source: "Dennis, B. et al. (2006). Ecol. Monogr. 76: 323–341",
-  params: [
-    param("r", "per year", "strength of density dependence on the log scale", { min: 0, max: 3 }, 0.5),
-    carryingCapacity,
-  ],
+  params: [growthRate("strength of density dependence on the log scale", 3, 0.5), carryingCapacity],
   constraints: [],
   factor: (m, { r, K }) => Math.exp(r * Math.log(K / Math.max(m, FLOOR * K))),
   logFactor: (m, { r, K }) => r * Math.log(K / Math.max(m, FLOOR * K)),

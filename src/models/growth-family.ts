@@ -1,28 +1,7 @@
-import type { ParamInfo } from "../params.js";
-
-/** Identifiers of the growth families, as used in a model spec's `family` field. */
-export const FAMILY_IDS = [
-  "discrete-logistic",
-  "ricker",
-  "beverton-holt",
-  "shepherd",
-  "hassell",
-  "theta-logistic",
-  "gompertz",
-  "allee-ricker",
-] as const;
-
-export type FamilyId = (typeof FAMILY_IDS)[number];
+import type { OrderConstraint, ParamInfo } from "../params.js";
 
 /** Parameter values by published symbol. */
 export type Params = Readonly<Record<string, number>>;
-
-/** A cross-parameter rule (for example A < K) checked after the ranges. */
-export interface ParamConstraint<P extends Params = Params> {
-  readonly field: string;
-  readonly text: string;
-  holds(p: P): boolean;
-}
 
 /**
  * A density-dependent growth family in per-capita form.
@@ -35,14 +14,17 @@ export interface ParamConstraint<P extends Params = Params> {
  * f'(N) = g(N) + N·g'(N).
  */
 export interface GrowthFamily<P extends Params = Params> {
-  readonly id: FamilyId;
-  readonly title: string;
+  /** The id used in a model spec's `family` field. */
+  readonly id: string;
+  /** The family's name for people. */
+  readonly label: string;
   /** The map in plain text. */
   readonly equation: string;
   /** The published source of the equation. */
   readonly source: string;
   readonly params: readonly ParamInfo[];
-  readonly constraints: readonly ParamConstraint<P>[];
+  /** Orders between parameters (A < K), checked after the ranges. */
+  readonly constraints: readonly OrderConstraint[];
   /** Per-capita factor g(M) at density term M ≥ 0. */
   factor(m: number, p: P): number;
   /**

@@ -1,4 +1,4 @@
-import { carryingCapacity, param } from "../params.js";
+import { carryingCapacity, maxReproduction, param } from "../params.js";
 import type { GrowthFamily } from "./growth-family.js";
 
 export interface HassellParams {
@@ -20,19 +20,21 @@ export interface HassellParams {
  */
 export const hassell: GrowthFamily<HassellParams> = {
   id: "hassell",
-  title: "Hassell",
+  label: "Hassell",
   equation: "N[t+1] = R0·N[t] / (1 + a·N[t−T])^β, a = (R0^(1/β) − 1)/K",
   source: "Hassell, M. P. (1975). J. Anim. Ecol. 44: 283–295",
   params: [
-    param("R0", "dimensionless", "maximum per-capita reproduction (at low density)", { min: 1, max: 1e4 }, 3),
+    maxReproduction,
     carryingCapacity,
-    param(
-      "beta",
-      "dimensionless",
-      "competition exponent β (1 = Beverton–Holt, large = scramble)",
-      { min: 0, max: 20 },
-      2,
-    ),
+    param({
+      name: "beta",
+      label: "competition exponent β",
+      unitKind: "dimensionless",
+      description: "1 is Beverton–Holt; large values are scramble competition",
+      range: { min: 0, max: 20 },
+      default: 2,
+      sweep: [0.2, 6],
+    }),
   ],
   constraints: [],
   factor: (m, { R0, K, beta }) => {

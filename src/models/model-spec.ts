@@ -1,13 +1,24 @@
 import { z } from "zod";
-import type { Issue } from "../issues.js";
-import { paramsSchema } from "../params.js";
+import { brokenOrder, numberSchema, orderIssue, param, paramsSchema, valueIssue } from "../params.js";
 import { fail, ok, type Result } from "../result.js";
 import { issueFromZod } from "../zod-issue.js";
-import { families } from "./families.js";
-import { FAMILY_IDS, type FamilyId, type GrowthFamily, type Params } from "./growth-family.js";
+import { FAMILY_IDS, type FamilyId, families } from "./families.js";
+import type { GrowthFamily, Params } from "./growth-family.js";
 
 /** Longest delay T (years) accepted in a model's density term. */
 export const MAX_DELAY = 50;
+
+/** The delay T of a model's density term, described like every other setting. */
+export const DELAY = param({
+  name: "delay",
+  label: "delay T in the density term",
+  unitKind: "years",
+  description: "reproduction responds to the abundance T years earlier",
+  range: { min: 0, max: MAX_DELAY, minInclusive: true },
+  default: 0,
+  sweep: [0, 5],
+  integer: true,
+});
 
 /** A growth model as plain JSON: family, parameters by symbol, delay T in years. */
 export interface ModelSpec {
@@ -26,7 +37,7 @@ export function familySchema(id: FamilyId) {
   return z.strictObject({
     family: z.literal(id),
     params: paramsSchema(families[id].params),
-    delay: z.int().min(0).max(MAX_DELAY).default(0).describe("delay T in the density term [years]"),
+    delay: numberSchema(DELAY).default(0),
   });
 }
 
@@ -84,17 +95,9 @@ export function parseModel(input: unknown, prefix = "model"): Result<Model> {
     );
   }
   const params = parsed.data.params as Params;
-  const broken = checkConstraints(growth, params, prefix);
-  if (broken) return fail(broken);
+  const broken = brokenOrder(growth.constraints, params);
+  if (broken) return fail(orderIssue(broken, params, `${prefix}.params`));
   return ok({ family: id, params, delay: parsed.data.delay, growth });
-}
-
-function checkConstraints(growth: GrowthFamily<Params>, p: Params, prefix: string): Issue | undefined {
-  for (const c of growth.constraints) {
-    if (!c.holds(p))
-      return { code: "constraint_violated", field: `${prefix}.${c.field}`, constraint: c.text };
-  }
-  return undefined;
 }
 
 /**
@@ -104,29 +107,10 @@ function checkConstraints(growth: GrowthFamily<Params>, p: Params, prefix: strin
  */
 export function withParams(model: Model, params: Params, prefix = "model.params"): Result<Model> {
   for (const info of model.growth.params) {
-    const v = params[info.name];
-    const field = `${prefix}.${info.name}`;
-    if (v === undefined) return fail({ code: "missing_field", field });
-    if (!Number.isFinite(v)) return fail({ code: "not_finite", field, received: String(v) });
-    const below = info.minInclusive ? v < info.min : v <= info.min;
-    const above = info.maxInclusive ? v > info.max : v >= info.max;
-    if (below || above)
-      return fail({
-        code: "param_out_of_range",
-        field,
-        value: v,
-        min: info.min,
-        max: info.max,
-        minInclusive: info.minInclusive,
-        maxInclusive: info.maxInclusive,
-      });
+    const issue = valueIssue(info, params[info.name], `${prefix}.${info.name}`);
+    if (issue) return fail(issue);
   }
-  for (const c of model.growth.constraints)
-    if (!c.holds(params))
-      return fail({
-        code: "constraint_violated",
-        field: `${prefix}.${c.field.replace(/^params\./, "")}`,
-        constraint: c.text,
-      });
+  const broken = brokenOrder(model.growth.constraints, params);
+  if (broken) return fail(orderIssue(broken, params, prefix));
   return ok({ ...model, params });
 }

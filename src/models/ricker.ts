@@ -1,4 +1,4 @@
-import { carryingCapacity, param } from "../params.js";
+import { carryingCapacity, growthRate } from "../params.js";
 import { lambertW0 } from "../numeric/lambert-w.js";
 import type { GrowthFamily } from "./growth-family.js";
 
@@ -22,19 +22,10 @@ export interface RickerParams {
  */
 export const ricker: GrowthFamily<RickerParams> = {
   id: "ricker",
-  title: "Ricker",
+  label: "Ricker",
   equation: "N[t+1] = N[t]·exp(r·(1 − N[t−T]/K))",
   source: "Ricker, W. E. (1954). J. Fish. Res. Board Can. 11: 559–623",
-  params: [
-    param(
-      "r",
-      "per year",
-      "intrinsic rate of increase (log of maximum per-capita growth)",
-      { min: 0, max: 10 },
-      1,
-    ),
-    carryingCapacity,
-  ],
+  params: [growthRate("log of the maximum per-capita growth", 10, 1), carryingCapacity],
   constraints: [],
   factor: (m, { r, K }) => Math.exp(r * (1 - m / K)),
   logFactor: (m, { r, K }) => r * (1 - m / K),

@@ -1,4 +1,4 @@
-import { carryingCapacity, param } from "../params.js";
+import { carryingCapacity, maxReproduction, param } from "../params.js";
 import type { GrowthFamily } from "./growth-family.js";
 
 export interface ShepherdParams {
@@ -22,19 +22,21 @@ export interface ShepherdParams {
  */
 export const shepherd: GrowthFamily<ShepherdParams> = {
   id: "shepherd",
-  title: "Shepherd",
+  label: "Shepherd",
   equation: "N[t+1] = R0·N[t] / (1 + (R0 − 1)·(N[t−T]/K)^δ)",
   source: "Shepherd, J. G. (1982). J. Cons. int. Explor. Mer 40: 67–75",
   params: [
-    param("R0", "dimensionless", "maximum per-capita reproduction (at low density)", { min: 1, max: 1e4 }, 3),
+    maxReproduction,
     carryingCapacity,
-    param(
-      "delta",
-      "dimensionless",
-      "compensation exponent δ (1 = Beverton–Holt, > 1 overcompensation)",
-      { min: 0, max: 10 },
-      2,
-    ),
+    param({
+      name: "delta",
+      label: "compensation exponent δ",
+      unitKind: "dimensionless",
+      description: "1 is Beverton–Holt; above 1 the stock overcompensates",
+      range: { min: 0, max: 10 },
+      default: 2,
+      sweep: [0.2, 6],
+    }),
   ],
   constraints: [],
   factor: (m, { R0, K, delta }) => R0 / (1 + (R0 - 1) * Math.pow(m / K, delta)),

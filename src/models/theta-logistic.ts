@@ -1,4 +1,4 @@
-import { carryingCapacity, param } from "../params.js";
+import { carryingCapacity, growthRate, param } from "../params.js";
 import type { GrowthFamily } from "./growth-family.js";
 
 export interface ThetaLogisticParams {
@@ -22,19 +22,21 @@ export interface ThetaLogisticParams {
  */
 export const thetaLogistic: GrowthFamily<ThetaLogisticParams> = {
   id: "theta-logistic",
-  title: "Theta-logistic (Pella–Tomlinson)",
+  label: "Theta-logistic (Pella–Tomlinson)",
   equation: "N[t+1] = N[t] + r·N[t]·(1 − (N[t−T]/K)^θ)",
   source: "Pella, J. J. & Tomlinson, P. K. (1969). Bull. Inter-Am. Trop. Tuna Comm. 13: 419–496",
   params: [
-    param("r", "per year", "intrinsic rate of increase", { min: 0, max: 3 }, 1),
+    growthRate("intrinsic rate of increase", 3, 1),
     carryingCapacity,
-    param(
-      "theta",
-      "dimensionless",
-      "shape exponent θ (1 = logistic; production peaks above K/2 for θ > 1)",
-      { min: 0, max: 20 },
-      1,
-    ),
+    param({
+      name: "theta",
+      label: "shape exponent θ",
+      unitKind: "dimensionless",
+      description: "1 is the logistic; production peaks above K/2 for θ above 1",
+      range: { min: 0, max: 20 },
+      default: 1,
+      sweep: [0.2, 6],
+    }),
   ],
   constraints: [],
   factor: (m, { r, K, theta }) => 1 + r * (1 - Math.pow(m / K, theta)),

@@ -1,14 +1,3 @@
-/** Identifiers of the harvest rules, as used in a rule spec's `kind` field. */
-export const RULE_KINDS = [
-  "no-harvest",
-  "constant-catch",
-  "constant-rate",
-  "constant-escapement",
-  "threshold",
-] as const;
-
-export type RuleKind = (typeof RULE_KINDS)[number];
-
 /**
  * A harvest rule: the quota Q it sets from the survey y that it sees.
  *
@@ -18,7 +7,8 @@ export type RuleKind = (typeof RULE_KINDS)[number];
  * used for the Jacobian of the closed loop.
  */
 export interface HarvestRule {
-  readonly kind: RuleKind;
+  /** The rule kind id (a key of RULE_CATALOGUE in rule-catalogue.ts). */
+  readonly kind: string;
   quota(y: number): number;
   quotaSlope(y: number): number;
 }

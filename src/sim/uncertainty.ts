@@ -13,81 +13,109 @@ export const MAX_REPLICATES = 1_000_000;
 export const MAX_PARAMETER_SETS = 20_000;
 
 /** The settings of a stochastic projection, with their units and ranges. */
-export const UNCERTAINTY_SETTINGS: Readonly<Record<string, ParamInfo>> = {
-  replicates: param(
-    "replicates",
-    "replicates",
-    "number of simulated futures",
-    { min: 10, max: MAX_REPLICATES, minInclusive: true },
-    1000,
-  ),
-  seed: param(
-    "seed",
-    "integer",
-    "seed of the random numbers (the same seed gives the same numbers)",
-    { min: 0, max: 2147483647, minInclusive: true },
-    1,
-  ),
-  processSd: param(
-    "processSd",
-    "sd of ln(multiplier)",
-    "lognormal process noise on production",
-    { min: 0, max: 3, minInclusive: true },
-    0.2,
-  ),
-  processAutocorrelation: param(
-    "processAutocorrelation",
-    "correlation",
-    "lag-1 autocorrelation of the process noise",
-    { min: -0.99, max: 0.99, minInclusive: true },
-    0,
-  ),
-  observationSd: param(
-    "observationSd",
-    "sd of ln(multiplier)",
-    "lognormal error of the survey the rule acts on",
-    { min: 0, max: 3, minInclusive: true },
-    0,
-  ),
-  implementationSd: param(
-    "implementationSd",
-    "sd of ln(multiplier)",
-    "lognormal error of the catch taken against the quota",
-    { min: 0, max: 3, minInclusive: true },
-    0,
-  ),
-  limit: param(
-    "limit",
-    "abundance unit",
-    "limit reference point (default 0.2·K)",
-    { min: 0, max: MAX_ABUNDANCE, minInclusive: true },
-    200,
-  ),
-  quasiExtinction: param(
-    "quasiExtinction",
-    "abundance unit",
-    "quasi-extinction threshold (default 0.01·K)",
-    { min: 0, max: MAX_ABUNDANCE, minInclusive: true },
-    10,
-  ),
-  recoveryTarget: param(
-    "recoveryTarget",
-    "abundance unit",
-    "recovery target (default 0.5·K)",
-    { min: 0, max: MAX_ABUNDANCE, minInclusive: true },
-    500,
-  ),
-  count: param(
-    "count",
-    "parameter sets",
-    "draws taken from the covariance",
-    { min: 1, max: MAX_PARAMETER_SETS, minInclusive: true },
-    1000,
-  ),
-};
+export const UNCERTAINTY_SETTINGS = {
+  replicates: param({
+    name: "replicates",
+    label: "number of replicates",
+    unitKind: "count",
+    description: "the number of simulated futures",
+    range: { min: 10, max: MAX_REPLICATES, minInclusive: true },
+    default: 1000,
+    sweep: [100, 100000],
+    scale: "log",
+    integer: true,
+  }),
+  seed: param({
+    name: "seed",
+    label: "random seed",
+    unitKind: "count",
+    description: "the seed of the random numbers (the same seed gives the same numbers)",
+    range: { min: 0, max: 2147483647, minInclusive: true },
+    default: 1,
+    sweep: [1, 1000],
+    integer: true,
+  }),
+  processSd: param({
+    name: "processSd",
+    label: "process noise σ_p",
+    unitKind: "log-sd",
+    description: "lognormal process noise on production",
+    range: { min: 0, max: 3, minInclusive: true },
+    default: 0.2,
+    sweep: [0, 1],
+  }),
+  processAutocorrelation: param({
+    name: "processAutocorrelation",
+    label: "process noise autocorrelation ρ",
+    unitKind: "correlation",
+    description: "lag-1 autocorrelation of the process noise",
+    range: { min: -0.99, max: 0.99, minInclusive: true },
+    default: 0,
+    sweep: [-0.9, 0.9],
+  }),
+  observationSd: param({
+    name: "observationSd",
+    label: "survey error σ_obs",
+    unitKind: "log-sd",
+    description: "lognormal error of the survey the rule acts on",
+    range: { min: 0, max: 3, minInclusive: true },
+    default: 0,
+    sweep: [0, 1],
+  }),
+  implementationSd: param({
+    name: "implementationSd",
+    label: "catch error σ_catch",
+    unitKind: "log-sd",
+    description: "lognormal error of the catch taken against the quota",
+    range: { min: 0, max: 3, minInclusive: true },
+    default: 0,
+    sweep: [0, 1],
+  }),
+  limit: param({
+    name: "limit",
+    label: "limit reference point",
+    unitKind: "abundance",
+    description: "a stock below it is at risk of impaired recruitment",
+    range: { min: 0, max: MAX_ABUNDANCE, minInclusive: true },
+    default: 200,
+    defaultTimesK: 0.2,
+    sweep: [0, 1],
+  }),
+  quasiExtinction: param({
+    name: "quasiExtinction",
+    label: "quasi-extinction threshold",
+    unitKind: "abundance",
+    description: "a stock below it counts as lost",
+    range: { min: 0, max: MAX_ABUNDANCE, minInclusive: true },
+    default: 10,
+    defaultTimesK: 0.01,
+    sweep: [0, 0.2],
+  }),
+  recoveryTarget: param({
+    name: "recoveryTarget",
+    label: "recovery target",
+    unitKind: "abundance",
+    description: "the level a depleted stock should regain",
+    range: { min: 0, max: MAX_ABUNDANCE, minInclusive: true },
+    default: 500,
+    defaultTimesK: 0.5,
+    sweep: [0, 1],
+  }),
+  count: param({
+    name: "count",
+    label: "parameter sets drawn",
+    unitKind: "count",
+    description: "draws taken from the covariance",
+    range: { min: 1, max: MAX_PARAMETER_SETS, minInclusive: true },
+    default: 1000,
+    sweep: [100, 10000],
+    scale: "log",
+    integer: true,
+  }),
+} as const satisfies Record<string, ParamInfo>;
 
-const s = (name: string) => numberSchema(UNCERTAINTY_SETTINGS[name]!);
-const int = (name: string) => s(name).int();
+const s = (name: keyof typeof UNCERTAINTY_SETTINGS) => numberSchema(UNCERTAINTY_SETTINGS[name]);
+const int = s;
 
 export const uncertaintySchema = z.strictObject({
   replicates: int("replicates"),
@@ -157,7 +185,7 @@ export function parseUncertainty(input: unknown, model: Model, prefix = "uncerta
       issueFromZod(
         parsed.error,
         input,
-        (path) => UNCERTAINTY_SETTINGS[String(path[path.length - 1])],
+        (path) => UNCERTAINTY_SETTINGS[String(path[path.length - 1]) as keyof typeof UNCERTAINTY_SETTINGS],
         prefix,
       ),
     );

@@ -1,7 +1,7 @@
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import { families } from "../../src/models/families.js";
-import { FAMILY_IDS } from "../../src/models/growth-family.js";
+import { FAMILY_IDS } from "../../src/models/families.js";
 import { closedLoop } from "../../src/policy/closed-loop.js";
 import { characteristicPolynomial, linearise } from "../../src/equilibria/jacobian.js";
 import { eigenvalues, polynomialRoots, modulus } from "../../src/equilibria/eigenvalues.js";
@@ -36,7 +36,7 @@ function build(s: {
   L: number;
 }) {
   const params: Record<string, number> = {};
-  for (const p of families[s.family].params) params[p.name] = p.typical;
+  for (const p of families[s.family].params) params[p.name] = p.default;
   return closedLoop(
     model(s.family, params, s.T),
     rule({ ...rules[s.ruleIndex]!, timing: s.timing, surveyLag: s.L }),

@@ -1,7 +1,8 @@
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import { families } from "../../src/models/families.js";
-import { FAMILY_IDS, production, productionSlope, type Params } from "../../src/models/growth-family.js";
+import { FAMILY_IDS } from "../../src/models/families.js";
+import { production, productionSlope, type Params } from "../../src/models/growth-family.js";
 import { msy } from "../../src/policy/msy.js";
 import { maximiseOnInterval } from "../../src/numeric/golden-section.js";
 import { expectClose, model, unwrap } from "../helpers.js";
@@ -53,8 +54,8 @@ for (const id of FAMILY_IDS) {
       for (const p of fam.params) {
         expect(p.unit.length).toBeGreaterThan(0);
         expect(p.min).toBeLessThan(p.max);
-        expect(p.typical).toBeGreaterThan(p.min);
-        expect(p.typical).toBeLessThanOrEqual(p.max);
+        expect(p.default).toBeGreaterThan(p.min);
+        expect(p.default).toBeLessThanOrEqual(p.max);
       }
     });
 

@@ -121,7 +121,7 @@ describe("the one-number shortcut next()", () => {
   it("gives bit for bit the same next abundance as step() for every family and timing", () => {
     for (const [id, fam] of Object.entries(families)) {
       const params: Record<string, number> = {};
-      for (const p of fam.params) params[p.name] = p.typical;
+      for (const p of fam.params) params[p.name] = p.default;
       for (const timing of ["before", "after"] as const) {
         for (const spec of [
           { kind: "constant-rate", rate: 0.3 },

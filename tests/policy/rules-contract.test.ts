@@ -2,7 +2,7 @@ import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import { closedLoop } from "../../src/policy/closed-loop.js";
 import type { RuleSpecInput } from "../../src/policy/rule-spec.js";
-import { FAMILY_IDS } from "../../src/models/growth-family.js";
+import { FAMILY_IDS } from "../../src/models/families.js";
 import { families } from "../../src/models/families.js";
 import { projectLoop } from "../../src/sim/project.js";
 import { expectClose, model, rule } from "../helpers.js";
@@ -51,7 +51,7 @@ for (const [name, spec] of Object.entries(RULES)) {
           (family, timing, surveyLag, delay, capped, start) => {
             const fam = families[family];
             const params: Record<string, number> = {};
-            for (const p of fam.params) params[p.name] = p.typical;
+            for (const p of fam.params) params[p.name] = p.default;
             if (family === "discrete-logistic" || family === "theta-logistic") params.r = 2.5;
             const r = rule({
               ...spec,
