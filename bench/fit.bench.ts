@@ -5,7 +5,7 @@ import { mkdtempSync, readFileSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { parseModel } from "../src/models/model-spec.js";
-import { projectThroughCatches } from "../src/sim/catch-driven.js";
+import { projectThroughCatches } from "../src/sim/project-through-catches.js";
 import { seededUniform, standardNormal } from "../src/sim/rng.js";
 import { fitProblem, optimiseFit } from "../src/fit/fit-model.js";
 import { compareModels } from "../src/fit/compare-models.js";

@@ -1,7 +1,10 @@
-// Compiles the AssemblyScript projection kernel (src/sim/wasm/projection-kernel.ts) to
-// WebAssembly and writes it, base64-encoded, to src/sim/wasm/projection-kernel.generated.ts
-// (not committed). Runs on `npm ci` (prepare), before the tests and before `npm start`.
+// Writes the kernel's layout table (src/sim/wasm/kernel-layout.ts) as AssemblyScript
+// constants (kernel-layout.generated.ts), compiles the AssemblyScript projection kernel
+// (src/sim/wasm/projection-kernel.ts) to WebAssembly and writes it, base64-encoded, to
+// src/sim/wasm/projection-kernel.generated.ts. Neither generated file is committed. Runs on
+// `npm ci` (prepare), before the tests and before `npm start`.
 import asc from "assemblyscript/asc";
+import { tsImport } from "tsx/esm/api";
 import { mkdtempSync, readFileSync, rmSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
@@ -10,6 +13,8 @@ import { fileURLToPath } from "node:url";
 const root = fileURLToPath(new URL("..", import.meta.url));
 const source = join(root, "src/sim/wasm/projection-kernel.ts");
 const target = join(root, "src/sim/wasm/projection-kernel.generated.ts");
+const { kernelLayoutSource } = await tsImport("../src/sim/wasm/kernel-layout.ts", import.meta.url);
+writeFileSync(join(root, "src/sim/wasm/kernel-layout.generated.ts"), kernelLayoutSource());
 const dir = mkdtempSync(join(tmpdir(), "yieldloop-kernel-"));
 const out = join(dir, "kernel.wasm");
 try {

@@ -79,7 +79,8 @@ export {
   type Uncertainty,
   type UncertaintyInput,
 } from "./sim/uncertainty.js";
-export { simulateBlocks, projectionBlocks, type ProjectionParts } from "./sim/stochastic-projection.js";
+export { simulateBlocks, projectionBlocks } from "./sim/simulate-blocks.js";
+export type { ProjectionParts } from "./sim/projection-parts.js";
 export {
   summariseProjection,
   PERCENTILE_LEVELS,
@@ -87,7 +88,7 @@ export {
   type RiskMetrics,
   type Estimate,
 } from "./sim/risk-metrics.js";
-export { projectStochastic } from "./sim/stochastic-run.js";
+export { projectStochastic } from "./sim/stochastic-projection.js";
 export {
   compareRules,
   ruleOutcome,
@@ -182,6 +183,6 @@ export { parametricBootstrap, type Bootstrap } from "./fit/bootstrap.js";
 export { minimise, type Optimum } from "./fit/minimise.js";
 export { nelderMead } from "./fit/nelder-mead.js";
 export { residualDiagnostics, normalCdf, type ResidualDiagnostics } from "./fit/diagnostics.js";
-export { projectThroughCatches } from "./sim/catch-driven.js";
+export { projectThroughCatches } from "./sim/project-through-catches.js";
 export { standardNormal } from "./sim/rng.js";
 export { logGamma } from "./numeric/log-gamma.js";

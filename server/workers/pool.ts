@@ -8,7 +8,7 @@ import type { Issue } from "../../src/issues.js";
 import { parseRule } from "../../src/policy/rule-spec.js";
 import { summariseProjection, type StochasticProjection } from "../../src/sim/risk-metrics.js";
 import { parseScenario } from "../../src/sim/scenario.js";
-import { projectionBlocks } from "../../src/sim/stochastic-projection.js";
+import { projectionBlocks } from "../../src/sim/simulate-blocks.js";
 import { parseRules, ruleOutcome, type RuleOutcome } from "../../src/sim/rule-comparison.js";
 import { parseUncertainty } from "../../src/sim/uncertainty.js";
 import type {

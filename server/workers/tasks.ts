@@ -13,7 +13,8 @@ import { parseSeriesCsv } from "../../src/fit/series.js";
 import type { Issue } from "../../src/issues.js";
 import { parseScenario } from "../../src/sim/scenario.js";
 import { parseUncertainty } from "../../src/sim/uncertainty.js";
-import { simulateBlocks, type ProjectionParts } from "../../src/sim/stochastic-projection.js";
+import type { ProjectionParts } from "../../src/sim/projection-parts.js";
+import { simulateBlocks } from "../../src/sim/simulate-blocks.js";
 
 export interface RegimeMapTask {
   readonly kind: "regime-map";

@@ -5,7 +5,7 @@ import { MAX_DELAY, type Model } from "../models/model-spec.js";
 import type { Timing } from "../policy/rule-spec.js";
 import { fail, ok, type Result } from "../result.js";
 import { seededUniform } from "../sim/rng.js";
-import { projectThroughCatches, yearWithCatch, type YearWithCatch } from "../sim/catch-driven.js";
+import { projectThroughCatches, yearWithCatch, type YearWithCatch } from "../sim/project-through-catches.js";
 import { cvWeights, negLogLikelihood, type LikelihoodKind } from "./likelihood.js";
 import { minimise, type Optimum } from "./minimise.js";
 import { transformFor, type Transform } from "./parameter-transform.js";

@@ -13,7 +13,7 @@ import { fitProblem, optimiseFit, type FitMethod, type FitOptions, type FitProbl
 import type { Series } from "./series.js";
 import type { Timing } from "../policy/rule-spec.js";
 import type { Model } from "../models/model-spec.js";
-import { yearWithCatch, type YearWithCatch } from "../sim/catch-driven.js";
+import { yearWithCatch, type YearWithCatch } from "../sim/project-through-catches.js";
 import { profileInterval, type ProfileInterval } from "./profile-likelihood.js";
 
 /** A fitted growth model with everything a review panel asks for. */

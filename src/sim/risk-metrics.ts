@@ -1,6 +1,6 @@
 import { HISTOGRAM_BINS, HISTOGRAM_GROUPS, histogramPercentiles } from "./quantile-histogram.js";
 import type { Scenario } from "./scenario.js";
-import type { ProjectionParts } from "./stochastic-projection.js";
+import type { ProjectionParts } from "./projection-parts.js";
 import type { Uncertainty } from "./uncertainty.js";
 
 /** The percentiles reported per year, in %. */

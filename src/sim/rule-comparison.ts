@@ -6,7 +6,7 @@ import { parseRule, type Rule } from "../policy/rule-spec.js";
 import { fail, ok, type Result } from "../result.js";
 import type { StochasticProjection } from "./risk-metrics.js";
 import type { Scenario } from "./scenario.js";
-import { projectStochastic } from "./stochastic-run.js";
+import { projectStochastic } from "./stochastic-projection.js";
 import type { Uncertainty } from "./uncertainty.js";
 
 /** Most candidate rules in one comparison. */

@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { parseModel } from "../../src/models/model-spec.js";
-import { projectThroughCatches } from "../../src/sim/catch-driven.js";
+import { projectThroughCatches } from "../../src/sim/project-through-catches.js";
 import { seededUniform, standardNormal } from "../../src/sim/rng.js";
 import { fitSeries } from "../../src/fit/fit-series.js";
 import { compareModels } from "../../src/fit/compare-models.js";

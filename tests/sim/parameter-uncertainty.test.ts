@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { parseScenario } from "../../src/sim/scenario.js";
 import { parseUncertainty } from "../../src/sim/uncertainty.js";
-import { projectStochastic } from "../../src/sim/stochastic-run.js";
+import { projectStochastic } from "../../src/sim/stochastic-projection.js";
 import { projectLoop } from "../../src/sim/project.js";
 import { closedLoop } from "../../src/policy/closed-loop.js";
 import { expectClose, model, unwrap } from "../helpers.js";

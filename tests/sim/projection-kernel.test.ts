@@ -2,12 +2,9 @@ import { describe, expect, it } from "vitest";
 import { closedLoop } from "../../src/policy/closed-loop.js";
 import { parseScenario } from "../../src/sim/scenario.js";
 import { parseUncertainty } from "../../src/sim/uncertainty.js";
-import {
-  projectionBlocks,
-  simulateBlocks,
-  type ProjectionParts,
-} from "../../src/sim/stochastic-projection.js";
-import { kernelApplies } from "../../src/sim/wasm-projection.js";
+import type { ProjectionParts } from "../../src/sim/projection-parts.js";
+import { projectionBlocks, simulateBlocks } from "../../src/sim/simulate-blocks.js";
+import { kernelApplies } from "../../src/sim/kernel-blocks.js";
 import { unwrap } from "../helpers.js";
 
 // The WebAssembly kernel against the TypeScript loop it was written from (the reference is

@@ -2,7 +2,7 @@ import { afterAll, describe, expect, it } from "vitest";
 import { createAnalysisPool } from "../../server/workers/pool.js";
 import { parseScenario } from "../../src/sim/scenario.js";
 import { parseUncertainty } from "../../src/sim/uncertainty.js";
-import { projectStochastic } from "../../src/sim/stochastic-run.js";
+import { projectStochastic } from "../../src/sim/stochastic-projection.js";
 import { projectLoop } from "../../src/sim/project.js";
 import { rule, unwrap } from "../helpers.js";
 

@@ -2,7 +2,7 @@ import { readFileSync } from "node:fs";
 import { describe, expect, it } from "vitest";
 import { parseScenario, type Scenario } from "../../src/sim/scenario.js";
 import { parseUncertainty, type UncertaintyInput } from "../../src/sim/uncertainty.js";
-import { projectStochastic } from "../../src/sim/stochastic-run.js";
+import { projectStochastic } from "../../src/sim/stochastic-projection.js";
 import { projectLoop } from "../../src/sim/project.js";
 import { analyseStability } from "../../src/equilibria/stability.js";
 import { expectClose, unwrap } from "../helpers.js";

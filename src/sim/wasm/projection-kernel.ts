@@ -1,6 +1,6 @@
 // AssemblyScript source of the stochastic projection's inner loop for loops whose state is
 // one number (no delay, no survey lag, no quota caps): the same arithmetic, in the same
-// order and from the same random stream, as runBlock in ../stochastic-projection.ts, compiled
+// order and from the same random stream, as runBlock in ../simulate-blocks.ts, compiled
 // to WebAssembly by scripts/build-kernel.mjs. Only exp, log and pow come from a different
 // library (AssemblyScript's port of musl instead of V8's port of fdlibm; both within 1 ulp),
 // so results agree with the TypeScript loop to rounding, not bit for bit; the tests check
@@ -15,6 +15,9 @@
 // Memory: the caller reserves one region (reserve) and lays every array out in it; the
 // pointers come in through configure. Nothing here allocates.
 
+import { CFG_HORIZON, CFG_MODEL_COUNT, CFG_FAMILY, CFG_RULE_KIND, CFG_Q1, CFG_Q2, CFG_Q3, CFG_Q4, CFG_STOCKING, CFG_BEFORE, CFG_SD_P, CFG_RHO, CFG_INNOVATION, CFG_HALF_P, CFG_SD_O, CFG_HALF_O, CFG_SD_I, CFG_HALF_I, CFG_LIMIT, CFG_QUASI, CFG_RECOVERY_TARGET, CFG_START, CFG_SCALE, CFG_BOUND, CFG_BINS, CFG_BIN_BASE, CFG_LAST_BIN } from "./kernel-layout.generated";
+import { PTR_MODELS, PTR_KN, PTR_WN, PTR_FN, PTR_N, PTR_EPS, PTR_PREV_CATCH, PTR_SUM_CATCH, PTR_SUM_CHANGE, PTR_FLAGS, PTR_PICK, PTR_A_COUNTS, PTR_C_COUNTS, PTR_A_RANGE, PTR_C_RANGE, PTR_BELOW, PTR_RECOVERY, PTR_COUNTERS, PTR_CATCH_TOTALS, PTR_AAV_SUMS, PTR_AAV_COUNTS, PTR_Z, PTR_A_POS, PTR_C_POS, PTR_EXP } from "./kernel-layout.generated";
+import { FAMILY_RICKER, FAMILY_BEVERTON_HOLT, FAMILY_DISCRETE_LOGISTIC, FAMILY_GOMPERTZ, FAMILY_ALLEE_RICKER, FAMILY_HASSELL, FAMILY_SHEPHERD, RULE_CONSTANT_CATCH, RULE_CONSTANT_RATE, RULE_CONSTANT_ESCAPEMENT, RULE_THRESHOLD, FAMILY_THETA_LOGISTIC, MODEL_BYTES } from "./kernel-layout.generated";
 import { BELOW_FLAG, BIGGEST, INT_ONE, LOWEST, ONE, QUASI_FLAG, RECOVERED_FLAG, UNBOUNDED_FLAG, lanes, lanesLog, lanesPow, splat, vexp } from "./two-lanes";
 
 // xoroshiro128+ as pure-rand implements it (two 32-bit halves per 64-bit word; the draw is
@@ -106,60 +109,60 @@ export function reserve(bytes: usize): usize {
   return base;
 }
 
-/** Reads the settings (f64 array `cfg`, layout in ../wasm-projection.ts) and the pointers (u32 array `ptr`). */
+/** Reads the settings (f64 array `cfg`) and the pointers (u32 array `ptr`), laid out as kernel-layout.ts says. */
 export function configure(cfg: usize, ptr: usize): void {
-  H = <i32>load<f64>(cfg, 0);
-  M = <i32>load<f64>(cfg, 8);
-  family = <i32>load<f64>(cfg, 16);
-  ruleKind = <i32>load<f64>(cfg, 24);
-  q1 = load<f64>(cfg, 32);
-  q2 = load<f64>(cfg, 40);
-  q3 = load<f64>(cfg, 48);
-  q4 = load<f64>(cfg, 56);
-  stocking = load<f64>(cfg, 64);
-  before = load<f64>(cfg, 72) != 0;
-  sdP = load<f64>(cfg, 80);
-  rho = load<f64>(cfg, 88);
-  innovation = load<f64>(cfg, 96);
-  halfP = load<f64>(cfg, 104);
-  sdO = load<f64>(cfg, 112);
-  halfO = load<f64>(cfg, 120);
-  sdI = load<f64>(cfg, 128);
-  halfI = load<f64>(cfg, 136);
-  limit = load<f64>(cfg, 144);
-  quasi = load<f64>(cfg, 152);
-  recoveryTarget = load<f64>(cfg, 160);
-  start = load<f64>(cfg, 168);
-  scale = load<f64>(cfg, 176);
-  bound = load<f64>(cfg, 184);
-  bins = <i32>load<f64>(cfg, 192);
-  binBase = <i32>load<f64>(cfg, 200);
-  lastBin = <i32>load<f64>(cfg, 208);
-  pModels = load<u32>(ptr, 0);
-  pKn = load<u32>(ptr, 4);
-  pWn = load<u32>(ptr, 8);
-  pFn = load<u32>(ptr, 12);
-  pN = load<u32>(ptr, 16);
-  pEps = load<u32>(ptr, 20);
-  pPrevCatch = load<u32>(ptr, 24);
-  pSumCatch = load<u32>(ptr, 28);
-  pSumChange = load<u32>(ptr, 32);
-  pFlags = load<u32>(ptr, 36);
-  pPick = load<u32>(ptr, 40);
-  pACounts = load<u32>(ptr, 44);
-  pCCounts = load<u32>(ptr, 48);
-  pARange = load<u32>(ptr, 52);
-  pCRange = load<u32>(ptr, 56);
-  pBelow = load<u32>(ptr, 60);
-  pRecovery = load<u32>(ptr, 64);
-  pCounters = load<u32>(ptr, 68);
-  pCatchTotals = load<u32>(ptr, 72);
-  pAavSums = load<u32>(ptr, 76);
-  pAavCounts = load<u32>(ptr, 80);
-  pZ = load<u32>(ptr, 84);
-  pAPos = load<u32>(ptr, 88);
-  pCPos = load<u32>(ptr, 92);
-  pExp = load<u32>(ptr, 96);
+  H = <i32>load<f64>(cfg + CFG_HORIZON);
+  M = <i32>load<f64>(cfg + CFG_MODEL_COUNT);
+  family = <i32>load<f64>(cfg + CFG_FAMILY);
+  ruleKind = <i32>load<f64>(cfg + CFG_RULE_KIND);
+  q1 = load<f64>(cfg + CFG_Q1);
+  q2 = load<f64>(cfg + CFG_Q2);
+  q3 = load<f64>(cfg + CFG_Q3);
+  q4 = load<f64>(cfg + CFG_Q4);
+  stocking = load<f64>(cfg + CFG_STOCKING);
+  before = load<f64>(cfg + CFG_BEFORE) != 0;
+  sdP = load<f64>(cfg + CFG_SD_P);
+  rho = load<f64>(cfg + CFG_RHO);
+  innovation = load<f64>(cfg + CFG_INNOVATION);
+  halfP = load<f64>(cfg + CFG_HALF_P);
+  sdO = load<f64>(cfg + CFG_SD_O);
+  halfO = load<f64>(cfg + CFG_HALF_O);
+  sdI = load<f64>(cfg + CFG_SD_I);
+  halfI = load<f64>(cfg + CFG_HALF_I);
+  limit = load<f64>(cfg + CFG_LIMIT);
+  quasi = load<f64>(cfg + CFG_QUASI);
+  recoveryTarget = load<f64>(cfg + CFG_RECOVERY_TARGET);
+  start = load<f64>(cfg + CFG_START);
+  scale = load<f64>(cfg + CFG_SCALE);
+  bound = load<f64>(cfg + CFG_BOUND);
+  bins = <i32>load<f64>(cfg + CFG_BINS);
+  binBase = <i32>load<f64>(cfg + CFG_BIN_BASE);
+  lastBin = <i32>load<f64>(cfg + CFG_LAST_BIN);
+  pModels = load<u32>(ptr + PTR_MODELS);
+  pKn = load<u32>(ptr + PTR_KN);
+  pWn = load<u32>(ptr + PTR_WN);
+  pFn = load<u32>(ptr + PTR_FN);
+  pN = load<u32>(ptr + PTR_N);
+  pEps = load<u32>(ptr + PTR_EPS);
+  pPrevCatch = load<u32>(ptr + PTR_PREV_CATCH);
+  pSumCatch = load<u32>(ptr + PTR_SUM_CATCH);
+  pSumChange = load<u32>(ptr + PTR_SUM_CHANGE);
+  pFlags = load<u32>(ptr + PTR_FLAGS);
+  pPick = load<u32>(ptr + PTR_PICK);
+  pACounts = load<u32>(ptr + PTR_A_COUNTS);
+  pCCounts = load<u32>(ptr + PTR_C_COUNTS);
+  pARange = load<u32>(ptr + PTR_A_RANGE);
+  pCRange = load<u32>(ptr + PTR_C_RANGE);
+  pBelow = load<u32>(ptr + PTR_BELOW);
+  pRecovery = load<u32>(ptr + PTR_RECOVERY);
+  pCounters = load<u32>(ptr + PTR_COUNTERS);
+  pCatchTotals = load<u32>(ptr + PTR_CATCH_TOTALS);
+  pAavSums = load<u32>(ptr + PTR_AAV_SUMS);
+  pAavCounts = load<u32>(ptr + PTR_AAV_COUNTS);
+  pZ = load<u32>(ptr + PTR_Z);
+  pAPos = load<u32>(ptr + PTR_A_POS);
+  pCPos = load<u32>(ptr + PTR_C_POS);
+  pExp = load<u32>(ptr + PTR_EXP);
 }
 
 // Marsaglia, G. & Tsang, W. W. (2000). The ziggurat method for generating random variables.
@@ -257,12 +260,12 @@ let fill: (z: usize, size: i32, draws: i32, plane: usize) => void = fillNormals;
 @inline function quota(kind: i32, y: v128, r1: v128, r2: v128, r3: v128, r4: v128): v128 {
   const zero = splat(0);
   switch (kind) {
-    case 1: return r1; // constant catch
-    case 2: return f64x2.mul(r1, y); // constant rate
-    case 3: return v128.bitselect(f64x2.sub(y, r1), zero, f64x2.gt(y, r1)); // constant escapement
-    case 4: // threshold (lower, upper, rate, width)
+    case RULE_CONSTANT_CATCH: return r1;
+    case RULE_CONSTANT_RATE: return f64x2.mul(r1, y);
+    case RULE_CONSTANT_ESCAPEMENT: return v128.bitselect(f64x2.sub(y, r1), zero, f64x2.gt(y, r1));
+    case RULE_THRESHOLD: // (lower, upper, rate, width)
       return v128.bitselect(zero, v128.bitselect(f64x2.mul(r3, y), f64x2.mul(f64x2.div(f64x2.mul(r3, f64x2.sub(y, r1)), r4), y), f64x2.ge(y, r2)), f64x2.le(y, r1));
-    default: return zero; // no harvest
+    default: return zero; // RULE_NO_HARVEST
   }
 }
 
@@ -274,22 +277,24 @@ let fill: (z: usize, size: i32, draws: i32, plane: usize) => void = fillNormals;
 @inline function production(fam: i32, base: v128, dens: v128, lp: v128, a: v128, K: v128, p2: v128, p3: v128, tab: usize): v128 {
   const one = lanes(ONE);
   switch (fam) {
-    case 0: // Ricker
+    case FAMILY_RICKER:
       return f64x2.mul(base, vexp(f64x2.add(f64x2.mul(a, f64x2.sub(one, f64x2.div(dens, K))), lp), tab));
-    case 1: // Beverton–Holt
+    case FAMILY_BEVERTON_HOLT:
       return f64x2.mul(f64x2.mul(base, f64x2.div(a, f64x2.add(one, f64x2.div(f64x2.mul(f64x2.sub(a, one), dens), K)))), vexp(lp, tab));
-    case 2: // discrete logistic
+    case FAMILY_DISCRETE_LOGISTIC:
       return f64x2.mul(f64x2.mul(base, f64x2.add(one, f64x2.mul(a, f64x2.sub(one, f64x2.div(dens, K))))), vexp(lp, tab));
-    case 3: // Gompertz
+    case FAMILY_GOMPERTZ:
       return f64x2.mul(base, vexp(f64x2.add(f64x2.mul(a, lanesLog(f64x2.div(K, f64x2.pmax(p2, dens)))), lp), tab));
-    case 4: // Allee–Ricker
+    case FAMILY_ALLEE_RICKER:
       return f64x2.mul(base, vexp(f64x2.add(f64x2.mul(f64x2.mul(a, f64x2.sub(one, f64x2.div(dens, K))), f64x2.sub(f64x2.div(dens, p2), one)), lp), tab));
-    case 5: // Hassell
+    case FAMILY_HASSELL:
       return f64x2.mul(f64x2.mul(base, f64x2.div(a, lanesPow(f64x2.add(one, f64x2.mul(p3, dens)), p2))), vexp(lp, tab));
-    case 6: // Shepherd
+    case FAMILY_SHEPHERD:
       return f64x2.mul(f64x2.mul(base, f64x2.div(a, f64x2.add(one, f64x2.mul(f64x2.sub(a, one), lanesPow(f64x2.div(dens, K), p2))))), vexp(lp, tab));
-    default: // theta-logistic
+    case FAMILY_THETA_LOGISTIC:
       return f64x2.mul(f64x2.mul(base, f64x2.add(one, f64x2.mul(a, f64x2.sub(one, lanesPow(f64x2.div(dens, K), p2))))), vexp(lp, tab));
+    default: // not a kernel family (kernelApplies keeps these out)
+      return splat(0);
   }
 }
 
@@ -450,8 +455,8 @@ export function runBlock(slot: i32, size: i32, a01: u32, a00: u32, a11: u32, a10
       let p2 = p20;
       let p3 = p30;
       if (!single) {
-        const m0 = models + (<usize>load<i32>(picks + (<usize>k << 2)) << 5);
-        const m1 = models + (<usize>load<i32>(picks + (<usize>k << 2), 4) << 5);
+        const m0 = models + <usize>load<i32>(picks + (<usize>k << 2)) * MODEL_BYTES;
+        const m1 = models + <usize>load<i32>(picks + (<usize>k << 2), 4) * MODEL_BYTES;
         a = gather(m0, m1, 0);
         K = gather(m0, m1, 8);
         p2 = gather(m0, m1, 16);

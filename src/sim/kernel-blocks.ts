@@ -1,5 +1,3 @@
-import { GOMPERTZ_FLOOR } from "../models/gompertz.js";
-import type { Model } from "../models/model-spec.js";
 import type { ClosedLoop } from "../policy/closed-loop.js";
 import type { Rule } from "../policy/rule-spec.js";
 import { expTable } from "./exp-table.js";
@@ -7,8 +5,17 @@ import { UNBOUNDED_FACTOR } from "./project.js";
 import { BINS_PER_OCTAVE, HISTOGRAM_BINS, LOWEST_OCTAVE, positiveSpan } from "./quantile-histogram.js";
 import { BLOCK_SIZE, blockLength } from "./replicate-streams.js";
 import type { Scenario } from "./scenario.js";
-import type { ProjectionParts } from "./stochastic-projection.js";
+import type { ProjectionParts } from "./projection-parts.js";
 import type { Uncertainty } from "./uncertainty.js";
+import {
+  KERNEL_ARRAYS,
+  KERNEL_CONFIG,
+  KERNEL_MODEL_WIDTH,
+  type KernelArrayName,
+  type KernelConfigName,
+  kernelFamily,
+  kernelRule,
+} from "./wasm/kernel-layout.js";
 import { PROJECTION_KERNEL_WASM } from "./wasm/projection-kernel.generated.js";
 import { ZIGGURAT_TABLES } from "./ziggurat.js";
 
@@ -17,7 +24,7 @@ const EXP_TABLE = expTable();
 /**
  * The stochastic projection's inner loop compiled to WebAssembly (src/sim/wasm/
  * projection-kernel.ts), for loops whose state is one number. It runs the replicate blocks
- * exactly as runBlock in stochastic-projection.ts does (same random stream, same order of
+ * exactly as runBlock in simulate-blocks.ts does (same random stream, same order of
  * operations, same histograms and counters), two replicates at a time in SIMD lanes, about
  * three times as fast; only exp, log and pow come from another library, so the two agree to
  * rounding.
@@ -28,17 +35,6 @@ interface KernelExports {
   configure(cfg: number, ptr: number): void;
   runBlock(slot: number, size: number, s01: number, s00: number, s11: number, s10: number): void;
 }
-
-const FAMILY_CODES: Record<string, number> = {
-  ricker: 0,
-  "beverton-holt": 1,
-  "discrete-logistic": 2,
-  gompertz: 3,
-  "allee-ricker": 4,
-  hassell: 5,
-  shepherd: 6,
-  "theta-logistic": 7,
-};
 
 /** The compiled kernel; null where it does not compile (no WebAssembly SIMD); undefined until tried. */
 let kernel: KernelExports | null | undefined;
@@ -64,63 +60,14 @@ function instance(): KernelExports | null {
   return kernel;
 }
 
-/** The rule kinds quota() in the kernel knows. */
-const RULE_KINDS_IN_KERNEL: ReadonlySet<string> = new Set([
-  "no-harvest",
-  "constant-catch",
-  "constant-rate",
-  "constant-escapement",
-  "threshold",
-]);
-
 /** True when the kernel can run this loop: a one-number state, a family and a rule kind it knows, and an engine with WebAssembly SIMD. */
 export function kernelApplies(loop: ClosedLoop): boolean {
   return (
     loop.layout.dimension === 1 &&
-    FAMILY_CODES[loop.model.family] !== undefined &&
-    RULE_KINDS_IN_KERNEL.has(loop.rule.kind) &&
+    kernelFamily(loop.model.family) !== null &&
+    kernelRule(loop.rule.kind) !== null &&
     instance() !== null
   );
-}
-
-/** The four numbers the kernel reads per parameter set (see production() in the kernel). */
-function modelParams(m: Model): [number, number, number, number] {
-  const p = m.params;
-  const K = p.K!;
-  switch (m.family) {
-    case "gompertz":
-      return [p.r!, K, GOMPERTZ_FLOOR * K, 0];
-    case "allee-ricker":
-      return [p.r!, K, p.A!, 0];
-    case "hassell":
-      return [p.R0!, K, p.beta!, (Math.pow(p.R0!, 1 / p.beta!) - 1) / K];
-    case "shepherd":
-      return [p.R0!, K, p.delta!, 0];
-    case "theta-logistic":
-      return [p.r!, K, p.theta!, 0];
-    case "beverton-holt":
-      return [p.R0!, K, 0, 0];
-    default:
-      return [p.r!, K, 0, 0];
-  }
-}
-
-/** The rule's kind code and settings (see quota() in the kernel). */
-function ruleSettings(rule: Rule): [number, number, number, number, number] {
-  switch (rule.kind) {
-    case "constant-catch":
-      return [1, rule.quota, 0, 0, 0];
-    case "constant-rate":
-      return [2, rule.rate, 0, 0, 0];
-    case "constant-escapement":
-      return [3, rule.escapement, 0, 0, 0];
-    case "threshold":
-      return [4, rule.lowerTrigger, rule.upperTrigger, rule.maxRate, rule.upperTrigger - rule.lowerTrigger];
-    case "no-harvest":
-      return [0, 0, 0, 0, 0];
-    default:
-      throw new Error(`projection kernel: no quota for rule kind ${(rule as { kind: string }).kind}`);
-  }
 }
 
 /** Byte offsets of every array in the kernel's region, 16-byte aligned (the kernel reads two lanes at once). */
@@ -155,36 +102,39 @@ export function kernelBlocks(
   const B = (Math.min(BLOCK_SIZE, u.replicates) + 1) & ~1;
   const M = loops.length;
   const L = new Layout();
-  // Every array the kernel uses; after cfg and ptr, in the order configure() reads their pointers.
-  const at = {
-    cfg: L.take(32 * 8),
-    ptr: L.take(32 * 4),
-    models: L.take(M * 32),
-    kn: L.take(128 * 4),
-    wn: L.take(128 * 8),
-    fn: L.take(128 * 8),
-    n: L.take(B * 8),
-    eps: L.take(B * 8),
-    prevCatch: L.take(B * 8),
-    sumCatch: L.take(B * 8),
-    sumChange: L.take(B * 8),
-    flags: L.take(B * 8),
-    pick: L.take(B * 4),
-    aCounts: L.take(parts.abundanceCounts.length * 4),
-    cCounts: L.take(parts.catchCounts.length * 4),
-    aRange: L.take(parts.abundanceRange.length * 8),
-    cRange: L.take(parts.catchRange.length * 8),
-    below: L.take((H + 1) * 4),
-    recovery: L.take((H + 1) * 4),
-    counters: L.take(4 * 4),
-    catchTotals: L.take(nb * 8),
-    aavSums: L.take(nb * 8),
-    aavCounts: L.take(nb * 4),
-    z: L.take(B * 24), // up to three planes of deviates (process, survey, catch)
-    aPos: L.take((H + 1) * 8),
-    cPos: L.take(H * 8),
-    exp: L.take(256 * 8),
+  // The size in bytes of every array the kernel uses (kernel-layout.ts gives their order).
+  const bytes: Record<KernelArrayName, number> = {
+    models: M * KERNEL_MODEL_WIDTH * 8,
+    kn: 128 * 4,
+    wn: 128 * 8,
+    fn: 128 * 8,
+    n: B * 8,
+    eps: B * 8,
+    prevCatch: B * 8,
+    sumCatch: B * 8,
+    sumChange: B * 8,
+    flags: B * 8,
+    pick: B * 4,
+    aCounts: parts.abundanceCounts.length * 4,
+    cCounts: parts.catchCounts.length * 4,
+    aRange: parts.abundanceRange.length * 8,
+    cRange: parts.catchRange.length * 8,
+    below: (H + 1) * 4,
+    recovery: (H + 1) * 4,
+    counters: 4 * 4,
+    catchTotals: nb * 8,
+    aavSums: nb * 8,
+    aavCounts: nb * 4,
+    z: B * 24, // up to three planes of deviates (process, survey, catch)
+    aPos: (H + 1) * 8,
+    cPos: H * 8,
+    exp: 256 * 8,
   };
+  const cfgAt = L.take(KERNEL_CONFIG.length * 8);
+  const ptrAt = L.take(KERNEL_ARRAYS.length * 4);
+  const at = {} as Record<KernelArrayName, number>;
+  for (const name of KERNEL_ARRAYS) at[name] = L.take(bytes[name]);
+
   const base = k.reserve(L.bytes);
   if (base === 0) throw new Error("projection kernel: out of memory");
   const buf = k.memory.buffer;
@@ -201,40 +151,45 @@ export function kernelBlocks(
   countsLeftZero = null;
   const f64 = (off: number, len: number) => new Float64Array(buf, base + off, len);
   const u32 = (off: number, len: number) => new Uint32Array(buf, base + off, len);
-  const [ruleKind, q1, q2, q3, q4] = ruleSettings(rule);
+  const family = kernelFamily(scenario.model.family);
+  const ruleEntry = kernelRule(rule.kind);
+  if (!family || !ruleEntry)
+    throw new Error("projection kernel: not a kernel loop (check kernelApplies first)");
+  const [q1, q2, q3, q4] = ruleEntry.settings(rule);
   const sdP = u.processSd;
   const rho = u.processAutocorrelation;
-  f64(at.cfg, 27).set([
-    H,
-    M,
-    FAMILY_CODES[scenario.model.family]!,
-    ruleKind,
+  const cfg: Record<KernelConfigName, number> = {
+    horizon: H,
+    modelCount: M,
+    family: family.code,
+    ruleKind: ruleEntry.code,
     q1,
     q2,
     q3,
     q4,
-    rule.stocking,
-    rule.timing === "before" ? 1 : 0,
+    stocking: rule.stocking,
+    before: rule.timing === "before" ? 1 : 0,
     sdP,
     rho,
-    sdP * Math.sqrt(1 - rho * rho),
-    0.5 * sdP * sdP,
-    u.observationSd,
-    0.5 * u.observationSd * u.observationSd,
-    u.implementationSd,
-    0.5 * u.implementationSd * u.implementationSd,
-    u.limit,
-    u.quasiExtinction,
-    u.recoveryTarget,
-    scenario.start[0]!,
-    1 / K,
-    UNBOUNDED_FACTOR * K,
-    HISTOGRAM_BINS,
-    (1023 + LOWEST_OCTAVE) * BINS_PER_OCTAVE,
-    HISTOGRAM_BINS - 1,
-  ]);
-  const models = f64(at.models, M * 4);
-  loops.forEach((loop, i) => models.set(modelParams(loop.model), i * 4));
+    innovation: sdP * Math.sqrt(1 - rho * rho),
+    halfP: 0.5 * sdP * sdP,
+    sdO: u.observationSd,
+    halfO: 0.5 * u.observationSd * u.observationSd,
+    sdI: u.implementationSd,
+    halfI: 0.5 * u.implementationSd * u.implementationSd,
+    limit: u.limit,
+    quasi: u.quasiExtinction,
+    recoveryTarget: u.recoveryTarget,
+    start: scenario.start[0]!,
+    scale: 1 / K,
+    bound: UNBOUNDED_FACTOR * K,
+    bins: HISTOGRAM_BINS,
+    binBase: (1023 + LOWEST_OCTAVE) * BINS_PER_OCTAVE,
+    lastBin: HISTOGRAM_BINS - 1,
+  };
+  f64(cfgAt, KERNEL_CONFIG.length).set(KERNEL_CONFIG.map((name) => cfg[name]));
+  const models = f64(at.models, M * KERNEL_MODEL_WIDTH);
+  loops.forEach((loop, i) => models.set(family.numbers(loop.model.params), i * KERNEL_MODEL_WIDTH));
   new BigUint64Array(buf, base + at.exp, 256).set(EXP_TABLE);
   new Int32Array(buf, base + at.kn, 128).set(ZIGGURAT_TABLES.kn);
   f64(at.wn, 128).set(ZIGGURAT_TABLES.wn);
@@ -243,10 +198,9 @@ export function kernelBlocks(
   f64(at.cRange, parts.catchRange.length).set(parts.catchRange);
   f64(at.aPos, H + 1).set(parts.abundancePositiveMin);
   f64(at.cPos, H).set(parts.catchPositiveMin);
-  // The pointers, in the order configure() reads them: every array after cfg and ptr, as laid out.
-  const order = (Object.keys(at) as (keyof typeof at)[]).slice(2);
-  u32(at.ptr, order.length).set(order.map((name) => base + at[name]));
-  k.configure(base + at.cfg, base + at.ptr);
+  // The pointers, in the order configure() reads them.
+  u32(ptrAt, KERNEL_ARRAYS.length).set(KERNEL_ARRAYS.map((name) => base + at[name]));
+  k.configure(base + cfgAt, base + ptrAt);
   for (let b = from; b < to; b++) {
     const s = states.next().value as readonly number[];
     k.runBlock(b - from, blockLength(b, u.replicates), s[0]!, s[1]!, s[2]!, s[3]!);
