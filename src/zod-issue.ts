@@ -34,6 +34,14 @@ export function issueFromZod(
       if (typeof value === "number" && !Number.isFinite(value)) {
         return { code: "not_finite", field, received: String(value) };
       }
+      // A string's or an array's length: "name is 300 characters; at most 200".
+      if (typeof value === "string" || Array.isArray(value)) {
+        const unit = typeof value === "string" ? "characters" : "items";
+        const bound = Number(first.code === "too_small" ? first.minimum : first.maximum);
+        return first.code === "too_small"
+          ? { code: "too_short", field, length: value.length, minimum: bound, unit }
+          : { code: "too_long", field, length: value.length, maximum: bound, unit };
+      }
       const info = lookup(path);
       if (info) {
         return {

@@ -148,9 +148,9 @@ export async function runJob(
 function describeJobError(error: unknown): string {
   if (error && typeof error === "object") {
     const e = error as Record<string, unknown>;
-    return [e.code, e.field, e.constraint ?? e.detail].filter(Boolean).join(": ");
+    if (typeof e.detail === "string") return e.detail;
   }
-  return String(error);
+  return "the server gave no reason";
 }
 
 /** A link that downloads a file from the API. */

@@ -10,6 +10,7 @@ import { analyseStability } from "../../src/equilibria/stability.js";
 import { MARGIN_PARAMETER } from "../../src/sim/rule-comparison.js";
 import { toCsv, type Cell } from "../export/csv.js";
 import { CAUTION } from "../export/report.js";
+import { ISSUE_TABLE } from "../issue-table.js";
 import { formatCell, formatNumber } from "../export/text.js";
 import { scenarioOnly } from "../http/scenario-input.js";
 import { comparisonTable, projectionTable, riskTable, type Table } from "../export/tables.js";
@@ -28,7 +29,10 @@ const print = (s: string) => process.stdout.write(s.endsWith("\n") ? s : `${s}\n
 const fmt = (v: unknown) => formatNumber(v);
 
 function rejected(issue: Issue, where: string): never {
-  throw new CliError(`${where}: ${describeIssue(issue)}`, EXIT.invalidInput);
+  throw new CliError(
+    `${where}: ${ISSUE_TABLE[issue.code].title}: ${describeIssue(issue)}`,
+    EXIT.invalidInput,
+  );
 }
 
 function emit(o: CommonOptions, value: unknown, table: Table | null, text: () => string): void {

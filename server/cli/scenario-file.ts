@@ -5,6 +5,7 @@ import { describeIssue } from "../../src/issues.js";
 import type { Scenario } from "../../src/sim/scenario.js";
 import { parseScenarioSpec } from "../http/scenario-input.js";
 import { scenarioOfFile, type DemoScenarioFile } from "../demo-data.js";
+import { ISSUE_TABLE } from "../issue-table.js";
 import { CliError, EXIT } from "./exit-codes.js";
 
 export interface ScenarioFile {
@@ -32,7 +33,11 @@ export function readScenarioFile(path: string): ScenarioFile {
   const raw = readJsonFile(path) as DemoScenarioFile & Record<string, unknown>;
   const spec = raw && typeof raw === "object" && "model" in raw ? scenarioOfFile(raw) : raw;
   const parsed = parseScenarioSpec(spec, "scenario");
-  if (!parsed.ok) throw new CliError(`${path}: ${describeIssue(parsed.issue)}`, EXIT.invalidInput);
+  if (!parsed.ok)
+    throw new CliError(
+      `${path}: ${ISSUE_TABLE[parsed.issue.code].title}: ${describeIssue(parsed.issue)}`,
+      EXIT.invalidInput,
+    );
   return {
     title: typeof raw.title === "string" ? raw.title : path,
     spec: parsed.value.spec,

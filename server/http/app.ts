@@ -4,7 +4,7 @@ import { timingSafeEqual } from "node:crypto";
 import express, { type ErrorRequestHandler, type RequestHandler } from "express";
 import type { AppContext } from "./context.js";
 import { openApiDocument } from "./openapi.js";
-import { PROBLEM_TYPES, sendProblem } from "./problem.js";
+import { sendIssueProblem } from "./problem.js";
 import { exportRoutes } from "./routes-exports.js";
 import { jobRoutes } from "./routes-jobs.js";
 import { resultRoutes } from "./routes-results.js";
@@ -41,12 +41,7 @@ function bearer(token: string): RequestHandler {
     const got = Buffer.from((req.get("authorization") ?? "").replace(/^Bearer\s+/i, ""));
     if (got.length === expected.length && timingSafeEqual(got, expected)) return next();
     res.set("WWW-Authenticate", 'Bearer realm="yieldloop"');
-    sendProblem(res, {
-      type: PROBLEM_TYPES.unauthorised,
-      title: "Unauthorised",
-      status: 401,
-      detail: "this server needs an API token: send Authorization: Bearer <token>",
-    });
+    sendIssueProblem(res, { code: "unauthorised" });
   };
 }
 
@@ -84,12 +79,7 @@ export function createApp(opts: AppOptions): express.Express {
   api.use(exportRoutes(opts));
   api.use(jobRoutes(opts));
   api.use((req, res) =>
-    sendProblem(res, {
-      type: PROBLEM_TYPES.notFound,
-      title: "Not found",
-      status: 404,
-      detail: `no route ${req.method} ${req.baseUrl}${req.path}`,
-    }),
+    sendIssueProblem(res, { code: "route_not_found", method: req.method, path: `${req.baseUrl}${req.path}` }),
   );
   app.use("/api/v1", api);
   if (opts.staticDir && existsSync(opts.staticDir))
@@ -104,12 +94,7 @@ export function createApp(opts: AppOptions): express.Express {
     );
   }
   app.use((req, res) =>
-    sendProblem(res, {
-      type: PROBLEM_TYPES.notFound,
-      title: "Not found",
-      status: 404,
-      detail: `nothing at ${req.path}`,
-    }),
+    sendIssueProblem(res, { code: "route_not_found", method: req.method, path: req.path }),
   );
   app.use(errors);
   return app;
@@ -118,47 +103,29 @@ export function createApp(opts: AppOptions): express.Express {
 // Body-parser failures become 400/413/415 problems; anything else is a 500 without details
 // (the stack goes to the server's log, never to the client).
 const errors: ErrorRequestHandler = (
-  err: { type?: string; status?: number; message?: string; stack?: string },
+  err: { type?: string; status?: number; message?: string; stack?: string; limit?: number },
   _req,
   res,
   _next,
 ) => {
   if (res.headersSent) return res.end();
   if (err.type === "entity.parse.failed")
-    return sendProblem(res, {
-      type: PROBLEM_TYPES.malformed,
-      title: "Malformed JSON",
-      status: 400,
-      detail: "the request body is not valid JSON",
-    });
+    return sendIssueProblem(res, { code: "malformed_json", detail: jsonError(err.message) });
   if (err.type === "entity.too.large")
-    return sendProblem(res, {
-      type: PROBLEM_TYPES.tooLarge,
-      title: "Body too large",
-      status: 413,
-      detail: "the request body is larger than this server accepts",
+    return sendIssueProblem(res, {
+      code: "body_too_large",
+      limit: err.limit !== undefined ? `at most ${err.limit} bytes` : "see the server's limits",
     });
-  if (err.type === "encoding.unsupported" || err.type === "charset.unsupported") {
-    return sendProblem(res, {
-      type: PROBLEM_TYPES.mediaType,
-      title: "Unsupported encoding",
-      status: 415,
-      detail: "send the body as UTF-8",
-    });
-  }
-  if (typeof err.status === "number" && err.status >= 400 && err.status < 500) {
-    return sendProblem(res, {
-      type: "about:blank",
-      title: "Bad request",
-      status: err.status,
-      detail: "the request could not be read",
-    });
-  }
+  if (err.type === "encoding.unsupported" || err.type === "charset.unsupported")
+    return sendIssueProblem(res, { code: "unsupported_encoding" });
+  if (typeof err.status === "number" && err.status >= 400 && err.status < 500)
+    return sendIssueProblem(res, { code: "bad_request" });
   process.stderr.write(`internal error: ${err.stack ?? err.message ?? String(err)}\n`);
-  sendProblem(res, {
-    type: PROBLEM_TYPES.internal,
-    title: "Internal error",
-    status: 500,
-    detail: "the server failed to answer this request; it has been logged",
-  });
+  sendIssueProblem(res, { code: "internal" });
 };
+
+/** JSON.parse's complaint without the body it quotes (which could be long or private). */
+function jsonError(message: string | undefined): string {
+  const m = /^(Unexpected [^,]*?|Expected [^,]*?)(?: in JSON)? at position (\d+)/.exec(message ?? "");
+  return m ? `${m[1]} at position ${m[2]}` : "it could not be parsed";
+}

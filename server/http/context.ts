@@ -60,12 +60,7 @@ export function pageOf(req: Request, res: Response): { limit: number; offset: nu
 /** The body must be a JSON object; the request is answered (400) if it is not. */
 export function jsonObject(req: Request, res: Response): Record<string, unknown> | undefined {
   if (!req.is("application/json")) {
-    sendProblem(res, {
-      type: "urn:yieldloop:problem:unsupported-media-type",
-      title: "Unsupported media type",
-      status: 415,
-      detail: "send the body as application/json",
-    });
+    sendProblem(res, issueProblem({ code: "unsupported_media_type", expected: "application/json" }));
     return undefined;
   }
   const b = req.body as unknown;
@@ -73,9 +68,7 @@ export function jsonObject(req: Request, res: Response): Record<string, unknown>
     sendProblem(
       res,
       issueProblem({
-        code: "wrong_type",
-        field: "(body)",
-        expected: "a JSON object",
+        code: "body_not_object",
         received: Array.isArray(b) ? "array" : b === null ? "null" : typeof b,
       }),
     );

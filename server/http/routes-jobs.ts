@@ -3,7 +3,7 @@ import { Router } from "express";
 import type { JobEvent } from "../jobs/job-runner.js";
 import type { JobRecord } from "../store/repository.js";
 import type { AppContext } from "./context.js";
-import { notFound, sendProblem } from "./problem.js";
+import { issueProblem, notFound, sendProblem } from "./problem.js";
 import { jobLinks, resultLinks } from "./routes-results.js";
 
 const RESULT_KIND: Record<string, "fit" | "analysis" | "projection" | "comparison"> = {
@@ -68,12 +68,7 @@ export function jobRoutes(ctx: AppContext): Router {
     const job = ctx.repo.getJob(req.params.id);
     if (!job) return sendProblem(res, notFound("job", req.params.id));
     if (!ctx.jobs.cancel(job.id)) {
-      return sendProblem(res, {
-        type: "urn:yieldloop:problem:conflict",
-        title: "The job has already ended",
-        status: 409,
-        detail: `job "${job.id}" is ${job.status}; only queued or running jobs can be cancelled`,
-      });
+      return sendProblem(res, issueProblem({ code: "job_already_ended", id: job.id, status: job.status }));
     }
     res.status(204).end();
   });

@@ -19,13 +19,7 @@ export function seriesRoutes(ctx: AppContext): Router {
       const n = parseWith(z.strictObject({ name: nameSchema }), { name: req.query.name ?? "series" }, res);
       if (!n) return;
       if (typeof req.body !== "string" || req.body.length === 0) {
-        sendProblem(res, {
-          type: "urn:yieldloop:problem:csv",
-          title: "The CSV could not be read",
-          status: 422,
-          detail: "the CSV body is empty",
-          field: "(body)",
-        });
+        sendProblem(res, issueProblem({ code: "csv_empty", field: "(body)" }));
         return;
       }
       name = n.name;

@@ -5,7 +5,7 @@ import { parseRule } from "../../src/policy/rule-spec.js";
 import { ok, type Result } from "../../src/result.js";
 import type { SpecKind } from "../store/repository.js";
 import { core, jsonObject, pageOf, parseWith, type AppContext } from "./context.js";
-import { notFound, sendProblem } from "./problem.js";
+import { issueProblem, notFound, sendProblem } from "./problem.js";
 import { modelJson, parseScenarioSpec, ruleJson } from "./scenario-input.js";
 import { z } from "zod";
 
@@ -36,13 +36,7 @@ export function specRoutes(ctx: AppContext): Router {
       const b = parseWith(envelope, body, res);
       if (!b) return;
       if (b.spec === undefined)
-        return sendProblem(res, {
-          type: "urn:yieldloop:problem:invalid-input",
-          title: "The request is not valid",
-          status: 422,
-          detail: "spec is required",
-          field: "spec",
-        });
+        return sendProblem(res, issueProblem({ code: "missing_field", field: "spec" }));
       const spec = core(parse(b.spec), res);
       if (spec === undefined) return;
       const rec = ctx.repo.insertSpec(kind, b.name, spec);

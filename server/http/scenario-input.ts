@@ -7,6 +7,7 @@ import { fail, ok, type Result } from "../../src/result.js";
 import { parseScenario, type Scenario } from "../../src/sim/scenario.js";
 import { parseUncertainty, type Uncertainty } from "../../src/sim/uncertainty.js";
 import type { Repository } from "../store/repository.js";
+import { objectIssue } from "../../src/object-input.js";
 
 export function modelJson(m: Model) {
   return { family: m.family, params: { ...m.params }, delay: m.delay };
@@ -31,14 +32,8 @@ export function parseScenarioSpec(
   input: unknown,
   prefix = "scenario",
 ): Result<{ spec: Record<string, unknown>; scenario: Scenario }> {
-  if (input === null || typeof input !== "object" || Array.isArray(input)) {
-    return fail({
-      code: "wrong_type",
-      field: prefix,
-      expected: "object",
-      received: Array.isArray(input) ? "array" : input === null ? "null" : typeof input,
-    });
-  }
+  const notObject = objectIssue(input, prefix);
+  if (notObject) return fail(notObject);
   const { uncertainty, ...rest } = input as Record<string, unknown>;
   const sc = parseScenario(rest);
   if (!sc.ok)

@@ -2,7 +2,8 @@
 // pool), progress pushed to listeners, cancellable. A job's result and its "done" status
 // are written in one transaction (Repository.finishJob).
 import { EventEmitter } from "node:events";
-import type { Issue } from "../../src/issues.js";
+import { describeIssue, type Issue } from "../../src/issues.js";
+import { ISSUE_TABLE } from "../issue-table.js";
 import type { JobRecord, Provenance, Repository, ResultKind } from "../store/repository.js";
 
 export type JobEvent =
@@ -61,8 +62,9 @@ export class JobRunner {
       const outcome = await work(controller.signal, progress);
       if (controller.signal.aborted) return;
       if (!outcome.ok) {
-        this.repo.failJob(id, outcome.issue);
-        emitter.emit("event", { type: "end", status: "failed", error: outcome.issue } satisfies JobEvent);
+        const error = jobError(outcome.issue);
+        this.repo.failJob(id, error);
+        emitter.emit("event", { type: "end", status: "failed", error } satisfies JobEvent);
         return;
       }
       const stored = this.repo.finishJob(id, outcome.kind, request, outcome.result, outcome.provenance);
@@ -74,12 +76,9 @@ export class JobRunner {
       process.stderr.write(
         `job ${id} failed: ${err instanceof Error ? (err.stack ?? err.message) : String(err)}\n`,
       );
-      this.repo.failJob(id, { code: "internal", detail: "the analysis failed inside the server" });
-      emitter.emit("event", {
-        type: "end",
-        status: "failed",
-        error: { code: "internal" },
-      } satisfies JobEvent);
+      const error = jobError({ code: "internal" });
+      this.repo.failJob(id, error);
+      emitter.emit("event", { type: "end", status: "failed", error } satisfies JobEvent);
     }
   }
 
@@ -110,4 +109,9 @@ export class JobRunner {
   cancelAll(): void {
     for (const id of [...this.live.keys()]) this.cancel(id);
   }
+}
+
+/** A failed job's error: the issue's data with its title and text (the same as a problem document's). */
+export function jobError(issue: Issue): Issue & { title: string; detail: string } {
+  return { ...issue, title: ISSUE_TABLE[issue.code].title, detail: describeIssue(issue) };
 }

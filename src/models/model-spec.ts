@@ -4,6 +4,7 @@ import { fail, ok, type Result } from "../result.js";
 import { issueFromZod } from "../zod-issue.js";
 import { FAMILY_IDS, type FamilyId, families } from "./families.js";
 import type { GrowthFamily, Params } from "./growth-family.js";
+import { objectIssue } from "../object-input.js";
 
 /** Longest delay T (years) accepted in a model's density term. */
 export const MAX_DELAY = 50;
@@ -63,14 +64,8 @@ function cachedSchema(id: FamilyId): ReturnType<typeof familySchema> {
  * Fails with an issue that names the field (`model.params.K`) and its allowed range.
  */
 export function parseModel(input: unknown, prefix = "model"): Result<Model> {
-  if (input === null || typeof input !== "object" || Array.isArray(input)) {
-    return fail({
-      code: "wrong_type",
-      field: prefix,
-      expected: "object",
-      received: input === null ? "null" : Array.isArray(input) ? "array" : typeof input,
-    });
-  }
+  const notObject = objectIssue(input, prefix);
+  if (notObject) return fail(notObject);
   const family = (input as { family?: unknown }).family;
   if (family === undefined) return fail({ code: "missing_field", field: `${prefix}.family` });
   if (typeof family !== "string" || !(FAMILY_IDS as readonly string[]).includes(family)) {

@@ -3,6 +3,7 @@ import { brokenOrder, numberSchema, orderIssue } from "../params.js";
 import { fail, ok, type Result } from "../result.js";
 import { issueFromZod } from "../zod-issue.js";
 import type { HarvestRule } from "./harvest-rule.js";
+import { objectIssue } from "../object-input.js";
 import {
   COMMON_RULE_SETTINGS,
   QUOTA_CHANGE_SETTINGS,
@@ -76,14 +77,8 @@ export const ruleSpecSchema = z.discriminatedUnion(
  * Fails with an issue that names the field (`rule.rate`) and its allowed range.
  */
 export function parseRule(input: unknown, prefix = "rule"): Result<Rule> {
-  if (input === null || typeof input !== "object" || Array.isArray(input)) {
-    return fail({
-      code: "wrong_type",
-      field: prefix,
-      expected: "object",
-      received: input === null ? "null" : Array.isArray(input) ? "array" : typeof input,
-    });
-  }
+  const notObject = objectIssue(input, prefix);
+  if (notObject) return fail(notObject);
   const kind = (input as { kind?: unknown }).kind;
   if (kind === undefined) return fail({ code: "missing_field", field: `${prefix}.kind` });
   if (typeof kind !== "string" || !(RULE_KINDS as readonly string[]).includes(kind)) {

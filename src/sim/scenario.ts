@@ -5,6 +5,7 @@ import { MAX_ABUNDANCE } from "../params.js";
 import { closedLoop, type ClosedLoop } from "../policy/closed-loop.js";
 import { parseRule, type Rule } from "../policy/rule-spec.js";
 import { fail, ok, type Result } from "../result.js";
+import { objectIssue } from "../object-input.js";
 
 /** Longest projection horizon, in years. */
 export const MAX_HORIZON = 1000;
@@ -30,14 +31,8 @@ const startSchema = z.union([
  * Fails with an issue naming the field, such as `start[1]` or `horizon`.
  */
 export function parseScenario(input: unknown): Result<Scenario> {
-  if (input === null || typeof input !== "object" || Array.isArray(input)) {
-    return fail({
-      code: "wrong_type",
-      field: "(scenario)",
-      expected: "object",
-      received: Array.isArray(input) ? "array" : typeof input,
-    });
-  }
+  const notObject = objectIssue(input, "(scenario)");
+  if (notObject) return fail(notObject);
   const raw = input as Record<string, unknown>;
   const model = parseModel(raw.model, "model");
   if (!model.ok) return model;

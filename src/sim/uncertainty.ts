@@ -6,6 +6,7 @@ import { fail, ok, type Result } from "../result.js";
 import { issueFromZod } from "../zod-issue.js";
 import { z } from "zod";
 import { zigguratNormal } from "./ziggurat.js";
+import { objectIssue } from "../object-input.js";
 
 /** Most replicates in one stochastic projection. */
 export const MAX_REPLICATES = 1_000_000;
@@ -171,14 +172,8 @@ export interface Uncertainty {
  * and Monte Carlo Methods, 2nd ed. Springer, §5.3.1 (from memory).
  */
 export function parseUncertainty(input: unknown, model: Model, prefix = "uncertainty"): Result<Uncertainty> {
-  if (input === null || typeof input !== "object" || Array.isArray(input)) {
-    return fail({
-      code: "wrong_type",
-      field: prefix,
-      expected: "object",
-      received: input === null ? "null" : Array.isArray(input) ? "array" : typeof input,
-    });
-  }
+  const notObject = objectIssue(input, prefix);
+  if (notObject) return fail(notObject);
   const parsed = uncertaintySchema.safeParse(input);
   if (!parsed.success)
     return fail(

@@ -35,12 +35,31 @@ describe("malformed and oversized bodies", () => {
     problem(await api.post("/api/v1/series?name=big").set("Content-Type", "text/csv").send(csv), 413);
   });
   it("a body that is not an object, or not JSON, is refused", async () => {
-    expect(problem(await api.post("/api/v1/scenarios").send([1, 2]), 422).field).toBe("(body)");
+    // RFC 9110 §15.5.1: a request the server cannot read as one is a 400 (Bad Request).
+    const notObject = problem(await api.post("/api/v1/scenarios").send([1, 2]), 400);
+    expect(notObject).toMatchObject({
+      type: "urn:yieldloop:problem:body-not-object",
+      issue: { code: "body_not_object", received: "array" },
+    });
     problem(await api.post("/api/v1/scenarios").set("Content-Type", "application/xml").send("<a/>"), 415);
   });
 });
 
 describe("fields are named, with the allowed range", () => {
+  it("a name that is too long says how long it is and the limit", async () => {
+    const b = problem(
+      await api.post("/api/v1/rules").send({ name: "x".repeat(300), spec: { kind: "no-harvest" } }),
+      422,
+    );
+    expect(b.issue).toEqual({
+      code: "too_long",
+      field: "name",
+      length: 300,
+      maximum: 200,
+      unit: "characters",
+    });
+    expect(b.detail).toBe("name is 300 characters; at most 200");
+  });
   it("a model parameter out of range", async () => {
     const r = await api
       .post("/api/v1/models")
@@ -111,7 +130,8 @@ describe("fields are named, with the allowed range", () => {
       .set("Content-Type", "text/csv")
       .send("year,count,catch\n2000,10,1\n2001,ten,1\n");
     const b = problem(r, 422);
-    expect(b.type).toBe("urn:yieldloop:problem:csv");
+    expect(b.type).toBe("urn:yieldloop:problem:csv-cell");
+    expect(b.title).toBe("The CSV could not be read");
     expect(b).toMatchObject({ row: 3, column: "count" });
     expect(b.detail).toMatch(/row 3, column "count"/);
     // Every problem is listed, row by row, with its own sentence.

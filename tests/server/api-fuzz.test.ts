@@ -2,6 +2,8 @@ import fc from "fast-check";
 import { afterAll, describe, expect, it } from "vitest";
 import { parseSeriesCsv } from "../../src/fit/series.js";
 import { parseScenarioSpec } from "../../server/http/scenario-input.js";
+import type { IssueCode } from "../../src/issues.js";
+import { ISSUE_TABLE } from "../../server/issue-table.js";
 import { scenarioSpec, testRuntime } from "./helpers.js";
 
 // Property-based fuzzing (fast-check) of the series and scenario endpoints: random and
@@ -90,6 +92,24 @@ const mutate = (base: Record<string, unknown>) =>
     });
 const spec = fc.oneof(mutate(scenarioSpec), fc.anything({ maxDepth: 3 }), fc.constant(scenarioSpec));
 
+/**
+ * A problem a person can read: its status and title are the issue-table's for its code, and
+ * its detail never shows a JavaScript artefact ("NaN", "undefined", "[object Object]")
+ * outside the quotes around what the user sent.
+ */
+function readableProblem(body: {
+  status: number;
+  title: string;
+  detail: string;
+  issue: { code: IssueCode };
+}) {
+  expect(body.issue?.code).toBeDefined();
+  expect(ISSUE_TABLE[body.issue.code]).toEqual({ status: body.status, title: body.title });
+  // What the user typed is quoted ("NaN" is not a number) and may say anything.
+  const own = body.detail.replace(/"(?:[^"\\]|\\.)*"/g, '""');
+  expect(own, body.detail).not.toMatch(/NaN|undefined|\[object|Infinity/);
+}
+
 describe("fuzzing the series and scenario endpoints", () => {
   it("CSV uploads: never a 5xx; 201 or a 4xx problem", async () => {
     await fc.assert(
@@ -98,7 +118,10 @@ describe("fuzzing the series and scenario endpoints", () => {
           ? await api.post("/api/v1/series").send({ name: "f", csv: text })
           : await api.post("/api/v1/series?name=f").set("Content-Type", "text/csv").send(text);
         expect(r.status, text).toBeLessThan(500);
-        if (r.status !== 201) expect(r.headers["content-type"]).toMatch(/problem\+json/);
+        if (r.status !== 201) {
+          expect(r.headers["content-type"]).toMatch(/problem\+json/);
+          readableProblem(r.body);
+        }
       }),
       { numRuns: 1500, seed: 20261202 },
     );
@@ -110,6 +133,7 @@ describe("fuzzing the series and scenario endpoints", () => {
         const r = await api.post("/api/v1/scenarios").send({ name, spec: s });
         expect(r.status).toBeLessThan(500);
         expect([201, 400, 413, 415, 422]).toContain(r.status);
+        if (r.status !== 201) readableProblem(r.body);
       }),
       { numRuns: 1500, seed: 20261203 },
     );

@@ -75,7 +75,11 @@ describe("jobs", () => {
     expect((await api.get("/api/v1/projections")).body.items.length).toBe(before);
     const again = await api.delete(`/api/v1/jobs/${p.body.job.id}`);
     expect(again.status).toBe(409);
-    expect(again.body.type).toBe("urn:yieldloop:problem:conflict");
+    expect(again.body).toMatchObject({
+      type: "urn:yieldloop:problem:job-already-ended",
+      title: "The job has already ended",
+      issue: { code: "job_already_ended", status: "cancelled" },
+    });
     expect((await api.get("/api/v1/jobs/nope")).status).toBe(404);
   });
 
