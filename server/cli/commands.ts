@@ -137,7 +137,7 @@ export function fitCommand(
     r.value,
     table,
     () =>
-      `${textTable(table)}\n\n${r.value.skipped.length ? `not fitted: ${r.value.skipped.map((s) => `${s.family} (delay ${s.delay}): ${s.reason}`).join("; ")}\n` : ""}`,
+      `${r.value.converged ? textTable(table) : "No model could be fitted to this series."}\n\n${r.value.skipped.length ? `not fitted: ${r.value.skipped.map((s) => `${s.family} (delay ${s.delay}): ${s.detail}`).join("; ")}\n` : ""}`,
   );
 }
 

@@ -1,4 +1,5 @@
 import { FAMILY_IDS, type FamilyId } from "../models/families.js";
+import { describeIssue, type IssueCode } from "../issues.js";
 import { fail, ok, type Result } from "../result.js";
 import { fitSeries, type SeriesFit } from "./fit-series.js";
 import type { FitOptions } from "./fit-model.js";
@@ -7,8 +8,18 @@ import type { Series } from "./series.js";
 export interface ModelComparison {
   /** Fits ordered by AICc, best first. */
   readonly fits: (SeriesFit & { readonly deltaAicc: number; readonly weight: number })[];
-  /** Families or delays that could not be fitted, with the reason. */
-  readonly skipped: { readonly family: FamilyId; readonly delay: number; readonly reason: string }[];
+  /**
+   * Families or delays that could not be fitted (a fit that did not converge among them),
+   * with the issue's code as `reason` and its words as `detail`.
+   */
+  readonly skipped: {
+    readonly family: FamilyId;
+    readonly delay: number;
+    readonly reason: IssueCode;
+    readonly detail: string;
+  }[];
+  /** True when at least one model was fitted; false when every model failed (see skipped). */
+  readonly converged: boolean;
 }
 
 /**
@@ -47,15 +58,12 @@ export function compareModels(
       if (r.ok) {
         fits.push(r.value);
         if (delay === 0) undelayed = r.value;
-      } else skipped.push({ family, delay, reason: r.issue.code });
+      } else skipped.push({ family, delay, reason: r.issue.code, detail: describeIssue(r.issue) });
     }
   }
-  if (fits.length === 0)
-    return fail(
-      skipped.length
-        ? { code: "fit_not_converged", iterations: 0 }
-        : { code: "series_too_short", minimum: 1, actual: 0 },
-    );
+  // Nothing was asked for: a request error. Everything asked for failed: a result that says so.
+  if (fits.length === 0 && skipped.length === 0) return fail({ code: "series_too_short", minimum: 1, actual: 0 });
+  if (fits.length === 0) return ok({ fits: [], skipped, converged: false });
   fits.sort((a, b) => a.aicc - b.aicc);
   const best = fits[0]!.aicc;
   const raw = fits.map((f) => Math.exp(-(f.aicc - best) / 2));
@@ -63,5 +71,6 @@ export function compareModels(
   return ok({
     fits: fits.map((f, i) => ({ ...f, deltaAicc: f.aicc - best, weight: raw[i]! / total })),
     skipped,
+    converged: true,
   });
 }

@@ -2,6 +2,7 @@ import { describe, expect, it } from "vitest";
 import { readFileSync } from "node:fs";
 import { logGamma } from "../../src/numeric/log-gamma.js";
 import { parseSeriesCsv } from "../../src/fit/series.js";
+import { compareModels, type ModelComparison } from "../../src/fit/compare-models.js";
 import { fitSeries } from "../../src/fit/fit-series.js";
 import type { Series } from "../../src/fit/series.js";
 import { expectClose, unwrap } from "../helpers.js";
@@ -92,5 +93,15 @@ describe("count likelihoods", () => {
       ok: false,
       issue: { code: "series_too_short" },
     });
+    // A comparison in which every model fails is still a result: it says so, model by model
+    // (Ricker estimates r, K, N0 and σ, and needs two points more than that).
+    const all = compareModels(series, { families: ["ricker", "gompertz"], delays: [0] });
+    expect(all).toMatchObject({ ok: true, value: { fits: [], converged: false } });
+    const skipped = (all as { value: ModelComparison }).value.skipped;
+    expect(skipped.map((s) => [s.family, s.reason])).toEqual([
+      ["ricker", "series_too_short"],
+      ["gompertz", "series_too_short"],
+    ]);
+    expect(skipped[0]!.detail).toBe("the series has 3 usable points; at least 6 are needed");
   });
 });

@@ -15,6 +15,13 @@ const FAMILIES = [
   "allee-ricker",
 ];
 
+interface Skipped {
+  family: string;
+  delay: number;
+  reason: string;
+  detail: string;
+}
+
 interface Fit {
   family: string;
   delay: number;
@@ -75,7 +82,7 @@ export function fitStep(root: HTMLElement): void {
     if (!done?.links.result) return;
     const rec = await getJson<{
       id: string;
-      result: { fits: Fit[]; skipped: { family: string; delay: number; reason: string }[] };
+      result: { fits: Fit[]; skipped: Skipped[] };
     }>(done.links.result);
     state.fitId = rec.id;
     fits = rec.result.fits;
@@ -100,7 +107,7 @@ export function fitStep(root: HTMLElement): void {
     setStatus(`Carrying on with ${label(f)}.`);
   }
 
-  function render(skipped: { family: string; delay: number; reason: string }[]): void {
+  function render(skipped: Skipped[]): void {
     const rows = fits.map((f, i) => {
       const g = f.estimates.r !== undefined ? "r" : "R0";
       const radio = el("input", {
@@ -167,7 +174,7 @@ export function fitStep(root: HTMLElement): void {
         ? el(
             "p",
             { class: "note" },
-            `Not fitted: ${skipped.map((s) => `${s.family} (delay ${s.delay}): ${s.reason}`).join("; ")}`,
+            `Not fitted: ${skipped.map((s) => `${s.family} (delay ${s.delay}): ${s.detail}`).join("; ")}`,
           )
         : null,
       state.fitId
