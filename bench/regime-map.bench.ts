@@ -23,7 +23,7 @@ export async function regimeMapBench(): Promise<void> {
     await pool.close();
     if (!map.ok) throw new Error(JSON.stringify(map.issue));
     const counts: Record<string, number> = {};
-    for (const v of map.regimes) counts[map.regimeNames[v]!] = (counts[map.regimeNames[v]!] ?? 0) + 1;
+    for (const v of map.regimes) counts[v] = (counts[v] ?? 0) + 1;
     console.log(
       JSON.stringify({
         bench: "regime-map",

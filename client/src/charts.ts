@@ -306,14 +306,17 @@ export function bifurcationChart(
     values: number[];
     points: number[][];
     equilibrium: (number | null)[];
-    stability: (number | null)[];
+    stability: string[];
   },
   current: number,
 ): Chart {
   const pts: { x: number; y: number }[] = [];
   d.values.forEach((v, i) => d.points[i]!.forEach((p) => pts.push({ x: v, y: p })));
-  const stable = d.values.map((v, i) => ({ x: v, y: d.stability[i] === 1 ? d.equilibrium[i] : null }));
-  const unstable = d.values.map((v, i) => ({ x: v, y: d.stability[i] === -1 ? d.equilibrium[i] : null }));
+  const stable = d.values.map((v, i) => ({ x: v, y: d.stability[i] === "stable" ? d.equilibrium[i] : null }));
+  const unstable = d.values.map((v, i) => ({
+    x: v,
+    y: d.stability[i] === "unstable" ? d.equilibrium[i] : null,
+  }));
   const top = Math.max(1, ...pts.map((p) => p.y));
   return drawChart(container, "bifurcation", `Long-run abundance against ${d.parameter}`, {
     type: "scatter",
@@ -370,16 +373,14 @@ export function regimeChart(
   m: {
     x: { path: string; values: number[] };
     y: { path: string; values: number[] };
-    regimes: number[];
-    regimeNames: string[];
+    regimes: string[];
     boundary: { x: number; y: number }[];
   },
   current: { x: number; y: number },
 ): Chart {
   const nx = m.x.values.length;
   const groups = new Map<string, { x: number; y: number }[]>();
-  m.regimes.forEach((r, k) => {
-    const name = m.regimeNames[r]!;
+  m.regimes.forEach((name, k) => {
     if (!groups.has(name)) groups.set(name, []);
     groups.get(name)!.push({ x: m.x.values[k % nx]!, y: m.y.values[Math.floor(k / nx)]! });
   });

@@ -260,13 +260,13 @@ export async function mapCommand(
   for (let j = 0; j < r.y.values.length; j++) {
     for (let i = 0; i < r.x.values.length; i++) {
       const k = j * r.x.values.length + i;
-      rows.push([r.x.values[i]!, r.y.values[j]!, r.regimeNames[r.regimes[k]!]!, r.periods[k]! || null]);
+      rows.push([r.x.values[i]!, r.y.values[j]!, r.regimes[k]!, r.periods[k] ?? null]);
     }
   }
   const table: Table = { header: [x.path, y.path, "regime", "period (years)"], rows };
   const counts: Record<string, number> = {};
-  for (const v of r.regimes) counts[r.regimeNames[v]!] = (counts[r.regimeNames[v]!] ?? 0) + 1;
-  emit(o, { ...r, regimes: Array.from(r.regimes), periods: Array.from(r.periods) }, table, () =>
+  for (const v of r.regimes) counts[v] = (counts[v] ?? 0) + 1;
+  emit(o, r, table, () =>
     [
       `${sf.title}: regime map over ${x.path} × ${y.path} (${r.x.values.length} × ${r.y.values.length} cells)`,
       ...Object.entries(counts).map(([k, v]) => `  ${k}: ${v} cells`),

@@ -247,7 +247,7 @@ export function analysisTable(result: Record<string, unknown>): Table {
         "regime",
         "period (years)",
         `largest equilibrium (${UNIT})`,
-        "Jury verdict (1 stable, 0 marginal, -1 unstable)",
+        "Jury verdict of that equilibrium",
       ],
       rows: b.values.map((v, i) => [
         v,
@@ -261,15 +261,14 @@ export function analysisTable(result: Record<string, unknown>): Table {
   const m = result as {
     x: { path: string; values: number[] };
     y: { path: string; values: number[] };
-    regimes: number[];
-    periods: number[];
-    regimeNames: string[];
+    regimes: string[];
+    periods: (number | null)[];
   };
   const rows: Cell[][] = [];
   for (let j = 0; j < m.y.values.length; j++) {
     for (let i = 0; i < m.x.values.length; i++) {
       const k = j * m.x.values.length + i;
-      rows.push([m.x.values[i]!, m.y.values[j]!, m.regimeNames[m.regimes[k]!]!, m.periods[k]! || null]);
+      rows.push([m.x.values[i]!, m.y.values[j]!, m.regimes[k]!, m.periods[k] ?? null]);
     }
   }
   return { header: [m.x.path, m.y.path, "regime", "period (years)"], rows };

@@ -1,9 +1,9 @@
 // A worker pool for long analyses (piscina), splitting a regime map by columns.
 import { setMaxListeners } from "node:events";
 import { Piscina } from "piscina";
-import { REGIMES } from "../../src/equilibria/long-run.js";
+import { REGIMES, type Regime } from "../../src/equilibria/long-run.js";
 import { axisValues, type SweepAxis } from "../../src/equilibria/bifurcation.js";
-import type { RegimeMapOptions } from "../../src/equilibria/regime-map.js";
+import type { RegimeMap, RegimeMapOptions } from "../../src/equilibria/regime-map.js";
 import type { Issue } from "../../src/issues.js";
 import { parseRule } from "../../src/policy/rule-spec.js";
 import { summariseProjection, type StochasticProjection } from "../../src/sim/risk-metrics.js";
@@ -60,10 +60,11 @@ export type PooledRegimeMap =
       ok: true;
       x: { path: string; values: number[] };
       y: { path: string; values: number[] };
-      regimes: Uint8Array;
-      periods: Uint8Array;
-      regimeNames: readonly string[];
-      boundary: { x: number; y: number; from: number; to: number }[];
+      /** Each cell's long-run regime by name, row-major: cell (i, j) at [j·nx + i]. */
+      regimes: Regime[];
+      /** Each cell's cycle period in years, null where it is not a cycle. */
+      periods: (number | null)[];
+      boundary: RegimeMap["boundary"];
     }
   | { ok: false; issue: Issue };
 
@@ -104,16 +105,17 @@ export function createAnalysisPool(threads: number): AnalysisPool {
         }),
       );
       const ny = req.y.count;
-      const regimes = new Uint8Array(nx * ny);
-      const periods = new Uint8Array(nx * ny);
-      const boundary: { x: number; y: number; from: number; to: number }[] = [];
+      // The workers send regime indices (small typed arrays travel cheaply); names from here on.
+      const regimes = new Array<Regime>(nx * ny);
+      const periods = new Array<number | null>(nx * ny);
+      const boundary: RegimeMap["boundary"] = [];
       for (const r of results) {
         if (!r.ok) return r;
         const [c0, c1] = r.columns;
         for (let j = 0; j < ny; j++) {
           for (let i = c0; i < c1; i++) {
-            regimes[j * nx + i] = r.regimes[j * nx + i]!;
-            periods[j * nx + i] = r.periods[j * nx + i]!;
+            regimes[j * nx + i] = REGIMES[r.regimes[j * nx + i]!]!;
+            periods[j * nx + i] = r.periods[j * nx + i]! || null;
           }
         }
         boundary.push(...r.boundary);
@@ -125,7 +127,6 @@ export function createAnalysisPool(threads: number): AnalysisPool {
         y: { path: req.y.path, values: axisValues(req.y) },
         regimes,
         periods,
-        regimeNames: REGIMES,
         boundary,
       };
     },

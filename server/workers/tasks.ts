@@ -2,7 +2,7 @@
 // src/, and returns plain data (typed arrays are transferred back).
 import { parseModel } from "../../src/models/model-spec.js";
 import { parseRule } from "../../src/policy/rule-spec.js";
-import { regimeMap, type RegimeMapOptions } from "../../src/equilibria/regime-map.js";
+import { type RegimeMap, regimeMap, type RegimeMapOptions } from "../../src/equilibria/regime-map.js";
 import {
   bifurcationDiagram,
   type BifurcationOptions,
@@ -60,7 +60,7 @@ export type TaskResult =
       ok: true;
       regimes: Uint8Array;
       periods: Uint8Array;
-      boundary: { x: number; y: number; from: number; to: number }[];
+      boundary: RegimeMap["boundary"];
       columns: readonly [number, number];
     }
   | { ok: false; issue: Issue };

@@ -3,7 +3,7 @@ import { closedLoop } from "../policy/closed-loop.js";
 import type { Rule } from "../policy/rule-spec.js";
 import { fail, ok, type Result } from "../result.js";
 import { longRun, type Regime } from "./long-run.js";
-import { operatingVerdict } from "./operating-verdict.js";
+import { type OperatingVerdict, operatingVerdict } from "./operating-verdict.js";
 import { parameterAxis, withParameter, type ParameterAxis } from "./parameter-path.js";
 
 export interface SweepAxis {
@@ -31,10 +31,10 @@ export interface BifurcationDiagram {
   readonly periods: (number | null)[];
   /** N* of the largest positive equilibrium at each value (null: none, the stock collapses). */
   readonly equilibrium: (number | null)[];
-  /** Jury verdict of that equilibrium: 1 stable, 0 marginal, −1 unstable, null none. */
-  readonly stability: (1 | 0 | -1 | null)[];
+  /** The Jury verdict of the largest positive equilibrium at each value ("none" when there is none). */
+  readonly stability: OperatingVerdict[];
   /** Values at which that verdict changes, located by bisection between neighbouring values. */
-  readonly boundaries: { value: number; from: 1 | 0 | -1 | null; to: 1 | 0 | -1 | null }[];
+  readonly boundaries: { value: number; from: OperatingVerdict; to: OperatingVerdict }[];
 }
 
 /**
@@ -110,14 +110,12 @@ export function bifurcationDiagram(
   const regimes: Regime[] = [];
   const periods: (number | null)[] = [];
   const equilibrium: (number | null)[] = [];
-  const stability: (1 | 0 | -1 | null)[] = [];
+  const stability: OperatingVerdict[] = [];
   const verdictAt = (v: number) => {
     const varied = sweepAt(model, rule, ax.value, v);
-    if (!varied.ok) return { code: null, abundance: null } as const;
+    if (!varied.ok) return { verdict: "none", abundance: null } as const;
     const res = operatingVerdict(closedLoop(varied.value.model, varied.value.rule));
-    return res.code === -2
-      ? ({ code: null, abundance: null } as const)
-      : { code: res.code as 1 | 0 | -1, abundance: res.abundance };
+    return res.verdict === "none" ? ({ verdict: "none", abundance: null } as const) : res;
   };
   for (const v of values) {
     const varied = sweepAt(model, rule, ax.value, v);
@@ -133,7 +131,7 @@ export function bifurcationDiagram(
     periods.push(run.period);
     const vd = verdictAt(v);
     equilibrium.push(vd.abundance);
-    stability.push(vd.code);
+    stability.push(vd.verdict);
   }
   const boundaries: BifurcationDiagram["boundaries"] = [];
   for (let i = 1; i < values.length; i++) {
@@ -143,7 +141,7 @@ export function bifurcationDiagram(
     if (!ax.value.integer) {
       for (let k = 0; k < 40; k++) {
         const mid = 0.5 * (a + b);
-        if (verdictAt(mid).code === stability[i - 1]) a = mid;
+        if (verdictAt(mid).verdict === stability[i - 1]) a = mid;
         else b = mid;
       }
     }

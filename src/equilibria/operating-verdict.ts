@@ -5,9 +5,14 @@ import { characteristicPolynomial, linearise } from "./jacobian.js";
 import { juryVerdict, type JuryCode } from "./jury-verdict.js";
 import { equilibriumResidual, steadyState } from "./steady-state.js";
 
+/** The linear verdict of an equilibrium, or "none" when the loop has no positive equilibrium. */
+export type OperatingVerdict = "stable" | "marginal" | "unstable" | "none";
+
+const NAMES = { 1: "stable", 0: "marginal", [-1]: "unstable", [-2]: "none" } as const;
+
 /**
- * The Jury verdict (1 stable, 0 marginal, −1 unstable) of the largest positive equilibrium
- * of the loop, or −2 when it has none (the stock collapses). A light version of
+ * The Jury verdict (stable, marginal, unstable) of the largest positive equilibrium of the
+ * loop, or "none" when it has none (the stock collapses). A light version of
  * analyseStability for sweeps: a coarser bracketing grid and no report.
  *
  * With `near` (the same equilibrium's abundance at a neighbouring parameter value) the root
@@ -20,7 +25,7 @@ export function operatingVerdict(
   loop: ClosedLoop,
   near?: number,
   gridPoints = 100,
-): { code: JuryCode; abundance: number } {
+): { verdict: OperatingVerdict; abundance: number } {
   let abundance = -1;
   if (near !== undefined && near > 0) {
     const phi = equilibriumResidual(loop);
@@ -38,12 +43,14 @@ export function operatingVerdict(
     for (const e of set.equilibria) {
       if (e.abundance > 0) {
         abundance = e.abundance;
-        if (e.multiplicity === "double") return { code: 0, abundance };
+        if (e.multiplicity === "double") return { verdict: "marginal", abundance };
       }
     }
   }
-  if (!(abundance > 0)) return { code: -2, abundance: 0 };
+  if (!(abundance > 0)) return { verdict: "none", abundance: 0 };
   const lin = linearise(loop, steadyState(loop, abundance));
-  if (!lin.lagCoefficients) return { code: -2, abundance };
-  return { code: juryVerdict(characteristicPolynomial(lin.lagCoefficients)), abundance };
+  if (!lin.lagCoefficients) return { verdict: "none", abundance };
+  // −2 from juryVerdict (a polynomial it cannot judge) has no linear verdict either.
+  const code: JuryCode = juryVerdict(characteristicPolynomial(lin.lagCoefficients));
+  return { verdict: NAMES[code], abundance };
 }

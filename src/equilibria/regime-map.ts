@@ -4,7 +4,7 @@ import type { Rule } from "../policy/rule-spec.js";
 import { fail, ok, type Result } from "../result.js";
 import { axisValues, checkSweepAxis, sweepAt, type SweepAxis } from "./bifurcation.js";
 import { longRun, longRunBatch, REGIMES, type LongRunOptions } from "./long-run.js";
-import { operatingVerdict } from "./operating-verdict.js";
+import { type OperatingVerdict, operatingVerdict } from "./operating-verdict.js";
 
 export interface RegimeMapOptions extends LongRunOptions {
   /** Start abundance and history (default K/2). */
@@ -24,7 +24,7 @@ export interface RegimeMap {
   /** Cycle period (0 when not a cycle). */
   readonly periods: Uint8Array;
   /** Points where the Jury verdict of the largest positive equilibrium changes along y, per column. */
-  readonly boundary: { x: number; y: number; from: number; to: number }[];
+  readonly boundary: { x: number; y: number; from: OperatingVerdict; to: OperatingVerdict }[];
 }
 
 /**
@@ -73,10 +73,10 @@ export function regimeMap(
     let tracked: number | undefined;
     const verdict = (yv: number) => {
       const loop = at(yv);
-      if (!loop) return -2;
+      if (!loop) return "none";
       const v = operatingVerdict(loop, tracked);
-      tracked = v.code === -2 ? undefined : v.abundance;
-      return v.code;
+      tracked = v.verdict === "none" ? undefined : v.abundance;
+      return v.verdict;
     };
     const rows: number[] = [];
     const loops: ClosedLoop[] = [];

@@ -62,7 +62,8 @@ export function compareModels(
     }
   }
   // Nothing was asked for: a request error. Everything asked for failed: a result that says so.
-  if (fits.length === 0 && skipped.length === 0) return fail({ code: "series_too_short", minimum: 1, actual: 0 });
+  if (fits.length === 0 && skipped.length === 0)
+    return fail({ code: "series_too_short", minimum: 1, actual: 0 });
   if (fits.length === 0) return ok({ fits: [], skipped, converged: false });
   fits.sort((a, b) => a.aicc - b.aicc);
   const best = fits[0]!.aicc;

@@ -53,6 +53,6 @@ describe("May (1976): the route to cycles", () => {
     expect(d.points[10]!.length).toBe(4); // r = 2.6 (values 1.5 + 0.11·i miss r = 2 itself)
     expect(d.boundaries.length).toBe(1);
     expect(Math.abs(d.boundaries[0]!.value - 2)).toBeLessThan(1e-6);
-    expect(d.boundaries[0]).toMatchObject({ from: 1, to: -1 });
+    expect(d.boundaries[0]).toMatchObject({ from: "stable", to: "unstable" });
   });
 });

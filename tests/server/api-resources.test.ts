@@ -193,7 +193,7 @@ describe("analyses, projections and comparisons", () => {
     const jm = await finished(rt, api, m.body.job.id);
     const map = (await api.get((jm.links as { result: string }).result)).body.result;
     expect(map.regimes).toHaveLength(120);
-    expect(map.regimeNames).toContain("equilibrium");
+    expect(map.regimes).toContain("equilibrium");
   });
   it("a projection job stores its result with the seed, and exports CSV and JSON tables", async () => {
     const p = await api.post("/api/v1/projections").send({ scenarioId });
