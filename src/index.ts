@@ -93,7 +93,6 @@ export {
   compareRules,
   ruleOutcome,
   parseRules,
-  MARGIN_PARAMETER,
   MAX_COMPARED_RULES,
   type RuleOutcome,
 } from "./sim/rule-comparison.js";

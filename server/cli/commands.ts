@@ -7,7 +7,7 @@ import { FAMILY_IDS, type FamilyId } from "../../src/models/families.js";
 import { describeIssue, type Issue } from "../../src/issues.js";
 import { stabilityMargin } from "../../src/equilibria/margin.js";
 import { analyseStability } from "../../src/equilibria/stability.js";
-import { MARGIN_PARAMETER } from "../../src/sim/rule-comparison.js";
+import { RULE_CATALOGUE } from "../../src/policy/rule-catalogue.js";
 import { toCsv, type Cell } from "../export/csv.js";
 import { CAUTION } from "../export/report.js";
 import { ISSUE_TABLE } from "../issue-table.js";
@@ -145,7 +145,7 @@ export function checkCommand(file: string, o: CommonOptions): void {
   const sf = readScenarioFile(file);
   const { model, rule, loop } = sf.scenario;
   const a = analyseStability(loop);
-  const m = stabilityMargin(model, rule, MARGIN_PARAMETER[rule.kind]);
+  const m = stabilityMargin(model, rule, RULE_CATALOGUE[rule.kind].main);
   const table: Table = {
     header: ["equilibrium (stock units)", "verdict", "dominant |λ|", "return time (years)", "period (years)"],
     rows: a.equilibria.map((e) => [

@@ -2,9 +2,9 @@
 // the printable HTML report.
 import { randomBytes } from "node:crypto";
 import { Router, type Response } from "express";
-import { stabilityMargin } from "../../src/equilibria/margin.js";
-import { analyseStability } from "../../src/equilibria/stability.js";
-import { MARGIN_PARAMETER } from "../../src/sim/rule-comparison.js";
+import type { StabilityMargin } from "../../src/equilibria/margin.js";
+import type { StabilityAnalysis } from "../../src/equilibria/stability.js";
+import { RULE_CATALOGUE } from "../../src/policy/rule-catalogue.js";
 import type { StochasticProjection } from "../../src/sim/risk-metrics.js";
 import { toCsv } from "../export/csv.js";
 import { reportHtml } from "../export/report.js";
@@ -17,9 +17,9 @@ import {
   type Table,
 } from "../export/tables.js";
 import type { ResultKind } from "../store/repository.js";
-import { core, parseWith, type AppContext } from "./context.js";
+import { core, parseWith, sendIssue, type AppContext } from "./context.js";
 import { notFound, sendProblem } from "./problem.js";
-import { parseScenarioSpec } from "./scenario-input.js";
+import { parseScenarioSpec, scenarioOnly } from "./scenario-input.js";
 import { z } from "zod";
 
 function sendTable(res: Response, t: Table, format: "csv" | "json", file: string): void {
@@ -75,7 +75,7 @@ export function exportRoutes(ctx: AppContext): Router {
   }
 
   // GET /api/v1/report?scenario=ID[&fit=ID][&projection=ID][&comparison=ID]
-  r.get("/report", (req, res) => {
+  r.get("/report", async (req, res) => {
     const q = parseWith(reportQuery, req.query, res);
     if (!q) return;
     const rec = ctx.repo.getSpec("scenario", q.scenario);
@@ -95,14 +95,20 @@ export function exportRoutes(ctx: AppContext): Router {
       results[kind] = found;
     }
     const s = parsed.scenario;
-    const margin = stabilityMargin(s.model, s.rule, MARGIN_PARAMETER[s.rule.kind]);
+    // Both analyses on the quick-analysis thread, as every other stability analysis.
+    const scenario = scenarioOnly(parsed.spec);
+    const [stability, margin] = await Promise.all([
+      ctx.quick.run({ kind: "stability", scenario }),
+      ctx.quick.run({ kind: "margin", scenario, parameter: RULE_CATALOGUE[s.rule.kind].main }),
+    ]);
+    if (!stability.ok) return sendIssue(res, stability.issue, "scenario");
     const nonce = randomBytes(16).toString("base64");
     const html = reportHtml(
       {
         title: `yieldloop report: ${rec.name}`,
         scenario: { id: rec.id, name: rec.name, spec: parsed.spec },
-        stability: analyseStability(s.loop),
-        margin: margin.ok ? margin.value : null,
+        stability: JSON.parse(stability.json) as StabilityAnalysis,
+        margin: margin.ok ? (JSON.parse(margin.json) as StabilityMargin) : null,
         fit: results.fit ?? null,
         projection: results.projection ?? null,
         comparison: results.comparison ?? null,

@@ -1,15 +1,13 @@
 // /api/v1/fits, /analyses, /projections, /comparisons: results with their provenance.
-// Quick analyses (stability, margin) answer 201 at once; long work answers 202 with a job.
+// Quick analyses (stability, margin, robust verdict) answer 201 at once, computed on the
+// quick-analysis thread; long work answers 202 with a job.
 import { Router, type Request, type Response } from "express";
 import { parseRule } from "../../src/policy/rule-spec.js";
-import { families } from "../../src/models/families.js";
-import { parseModel, type Model } from "../../src/models/model-spec.js";
-import { fail, ok, type Result } from "../../src/result.js";
-import { robustVerdict } from "../../src/sim/robust-verdict.js";
 import type { Provenance, ResultKind } from "../store/repository.js";
 import type { JobOutcome } from "../jobs/job-runner.js";
 import { core, jsonObject, pageOf, parseWith, sendIssue, type AppContext } from "./context.js";
 import { jsonSafe } from "./json-safe.js";
+import { JsonText, serialise } from "./json-text.js";
 import { notFound, sendProblem } from "./problem.js";
 import {
   contentHash,
@@ -110,60 +108,52 @@ export function resultRoutes(ctx: AppContext): Router {
     const { scenario: _sc, ...rest } = body;
     const b = parseWith(analysisBodySchema, rest, res);
     if (!b) return;
-    const { rule } = input.scenario;
     const request = { ...b, scenario: input.spec };
-    if (b.kind === "robust") {
-      const fit = ctx.repo.getResult("fit", b.fitId);
-      if (!fit) return sendProblem(res, notFound("fit", b.fitId));
-      const models = fittedModels(fit.result);
-      if (!models.ok) return sendIssue(res, models.issue, "fitId");
-      const v = robustVerdict(
-        models.value.map((m) => ({ model: m.model, weight: m.weight })),
-        rule,
-      );
-      if (!v.ok) return sendIssue(res, v.issue);
-      const result = { ...v.value, models: models.value.map((m) => m.label) };
-      if (b.store === false)
-        return void res.status(200).json({ kind: "analysis", request, result, stored: false });
-      const rec = ctx.repo.insertResult(
-        "analysis",
-        request,
-        jsonSafe(result),
-        provenance(input, { seriesId: fit.seriesId, dataHash: fit.dataHash }),
-      );
-      res
-        .status(201)
-        .location(`/api/v1/analyses/${rec.id}`)
-        .json({ ...rec, links: resultLinks("analysis", rec.id) });
-      return;
-    }
-    if (b.kind === "stability" || b.kind === "margin") {
+    if (b.kind === "stability" || b.kind === "margin" || b.kind === "robust") {
+      const scenarioSpec = scenarioOnly(input.spec);
+      let fit: ReturnType<typeof ctx.repo.getResult> = null;
+      if (b.kind === "robust") {
+        fit = ctx.repo.getResult("fit", b.fitId);
+        if (!fit) return sendProblem(res, notFound("fit", b.fitId));
+      }
       // Computed on the quick-analysis thread, which answers with the result's JSON text.
       const done = await ctx.quick.run(
-        b.kind,
-        scenarioOnly(input.spec),
-        b.kind === "margin" ? b.parameter : undefined,
+        b.kind === "stability"
+          ? { kind: "stability", scenario: scenarioSpec }
+          : b.kind === "margin"
+            ? { kind: "margin", scenario: scenarioSpec, parameter: b.parameter }
+            : { kind: "robust", scenario: scenarioSpec, fit: fit!.result },
       );
       if (!done.ok) return sendIssue(res, done.issue);
-      const resultJson = done.json;
-      const requestJson = JSON.stringify(request);
+      const result = new JsonText(done.json);
       if (b.store === false) {
         res
           .status(200)
           .type("json")
-          .send(`{"kind":"analysis","request":${requestJson},"result":${resultJson},"stored":false}`);
+          .send(serialise({ kind: "analysis", request, result, stored: false }));
         return;
       }
       // The JSON text is made once, for the row and for the answer.
-      const p = provenance(input);
-      const { id, createdAt } = await ctx.repo.insertResultText("analysis", requestJson, resultJson, p);
-      const head = JSON.stringify({ id, kind: "analysis" });
-      const tail = JSON.stringify({ ...p, createdAt, links: resultLinks("analysis", id) });
+      const requestJson = JSON.stringify(request);
+      const p = fit
+        ? provenance(input, { seriesId: fit.seriesId, dataHash: fit.dataHash })
+        : provenance(input);
+      const { id, createdAt } = await ctx.repo.insertResultText("analysis", requestJson, done.json, p);
       res
         .status(201)
         .location(`/api/v1/analyses/${id}`)
         .type("json")
-        .send(`${head.slice(0, -1)},"request":${requestJson},"result":${resultJson},${tail.slice(1)}`);
+        .send(
+          serialise({
+            id,
+            kind: "analysis",
+            request: new JsonText(requestJson),
+            result,
+            ...p,
+            createdAt,
+            links: resultLinks("analysis", id),
+          }),
+        );
       return;
     }
     const specModel = input.spec.model;
@@ -268,35 +258,6 @@ export function resultRoutes(ctx: AppContext): Router {
     });
   }
   return r;
-}
-
-/** The models of a stored fit result with their Akaike weights, validated by src/. */
-function fittedModels(result: unknown): Result<{ model: Model; weight: number; label: string }[]> {
-  const fits =
-    (
-      result as {
-        fits?: { family: string; delay: number; estimates: Record<string, number>; weight: number }[];
-      }
-    ).fits ?? [];
-  const out: { model: Model; weight: number; label: string }[] = [];
-  for (const f of fits) {
-    const family = families[f.family as keyof typeof families];
-    if (!family) continue;
-    const params: Record<string, number> = {};
-    for (const p of family.params)
-      if (f.estimates[p.name] !== undefined) params[p.name] = f.estimates[p.name]!;
-    const m = parseModel({ family: f.family, params, delay: f.delay });
-    // A fit at the edge of a parameter's range may not be a valid model spec; it is left out.
-    if (m.ok)
-      out.push({
-        model: m.value,
-        weight: f.weight,
-        label: `${f.family}${f.delay ? ` (delay ${f.delay})` : ""}`,
-      });
-  }
-  return out.length
-    ? ok(out)
-    : fail({ code: "constraint_violated", field: "fitId", constraint: "the fit holds no usable model" });
 }
 
 export function jobLinks(id: string) {

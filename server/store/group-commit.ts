@@ -3,6 +3,7 @@
 // last leaf, each index's last leaf), so a hundred one-row commits write those pages a
 // hundred times and one hundred-row commit writes them once. A request is answered only
 // after its transaction has committed, so nothing reported as stored can be lost.
+import { TurnBatch } from "../turn-batch.js";
 import type { Db } from "./database.js";
 
 interface Pending {
@@ -12,26 +13,16 @@ interface Pending {
 }
 
 export class GroupCommit {
-  private queue: Pending[] = [];
-  private scheduled = false;
+  private readonly batch = new TurnBatch<Pending>((b) => this.flush(b));
 
   constructor(private readonly db: Db) {}
 
   /** Runs `write` inside the next group transaction; resolves once that has committed. */
   add(write: () => void): Promise<void> {
-    return new Promise<void>((resolve, reject) => {
-      this.queue.push({ write, resolve, reject });
-      if (!this.scheduled) {
-        this.scheduled = true;
-        setImmediate(() => this.flush());
-      }
-    });
+    return new Promise<void>((resolve, reject) => this.batch.add({ write, resolve, reject }));
   }
 
-  private flush(): void {
-    const batch = this.queue;
-    this.queue = [];
-    this.scheduled = false;
+  private flush(batch: Pending[]): void {
     try {
       this.db.transaction(() => {
         for (const p of batch) p.write();

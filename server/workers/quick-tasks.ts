@@ -1,30 +1,60 @@
-// The quick analyses a quick-analysis thread runs (see quick-analyses.ts): a stability
-// analysis or a stability margin of a scenario spec already validated by the server, as the
-// JSON text the server stores and sends.
+// The quick analyses the quick-analysis thread runs (see quick-analyses.ts): a stability
+// analysis, a stability margin, or the robust verdict of a rule under a fit's model set, of a
+// scenario spec already validated by the server, as the JSON text the server stores and sends.
 import { stabilityMargin } from "../../src/equilibria/margin.js";
 import { analyseStability } from "../../src/equilibria/stability.js";
+import { fittedModels } from "../../src/fit/fitted-models.js";
 import type { Issue } from "../../src/issues.js";
+import { robustVerdict } from "../../src/sim/robust-verdict.js";
 import { parseScenario } from "../../src/sim/scenario.js";
 
-export interface QuickTask {
-  readonly id: number;
-  readonly kind: "stability" | "margin";
-  readonly scenario: unknown;
-  readonly parameter?: string;
-}
+export type QuickRequest =
+  | { readonly kind: "stability"; readonly scenario: unknown }
+  | { readonly kind: "margin"; readonly scenario: unknown; readonly parameter: string }
+  /** `fit` is a stored model comparison (its `fits` are read). */
+  | { readonly kind: "robust"; readonly scenario: unknown; readonly fit: unknown };
+
+export type QuickTask = QuickRequest & { readonly id: number };
 
 export type QuickAnswer =
   | { readonly id: number; readonly ok: true; readonly json: string }
-  | { readonly id: number; readonly ok: false; readonly issue: Issue };
+  | { readonly id: number; readonly ok: false; readonly issue: Issue }
+  | { readonly id: number; readonly ok: false; readonly error: string };
 
+// A stability analysis, a margin and a robust verdict are plain numbers, strings and arrays,
+// so JSON.stringify writes them whole (a test checks all three).
 export function runQuickTask(t: QuickTask): QuickAnswer {
   const sc = parseScenario(t.scenario);
   if (!sc.ok) return { id: t.id, ok: false, issue: sc.issue };
   if (t.kind === "stability")
     return { id: t.id, ok: true, json: JSON.stringify(analyseStability(sc.value.loop)) };
-  const m = stabilityMargin(sc.value.model, sc.value.rule, t.parameter ?? "");
-  // A margin is plain numbers, strings and arrays, like a stability analysis (a test checks both).
-  return m.ok
-    ? { id: t.id, ok: true, json: JSON.stringify(m.value) }
-    : { id: t.id, ok: false, issue: m.issue };
+  if (t.kind === "margin") {
+    const m = stabilityMargin(sc.value.model, sc.value.rule, t.parameter);
+    return m.ok
+      ? { id: t.id, ok: true, json: JSON.stringify(m.value) }
+      : { id: t.id, ok: false, issue: m.issue };
+  }
+  const models = fittedModels(t.fit);
+  if (!models.ok) return { id: t.id, ok: false, issue: models.issue };
+  const v = robustVerdict(
+    models.value.map((m) => ({ model: m.model, weight: m.weight })),
+    sc.value.rule,
+  );
+  if (!v.ok) return { id: t.id, ok: false, issue: v.issue };
+  return {
+    id: t.id,
+    ok: true,
+    json: JSON.stringify({ ...v.value, models: models.value.map((m) => m.label) }),
+  };
+}
+
+/** A batch of tasks, each answered (an exception becomes that task's error, not the batch's). */
+export function runQuickBatch(batch: readonly QuickTask[]): QuickAnswer[] {
+  return batch.map((task) => {
+    try {
+      return runQuickTask(task);
+    } catch (e) {
+      return { id: task.id, ok: false, error: e instanceof Error ? (e.stack ?? e.message) : String(e) };
+    }
+  });
 }

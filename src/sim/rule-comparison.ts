@@ -2,6 +2,7 @@ import { analyseStability } from "../equilibria/stability.js";
 import { stabilityMargin, type StabilityMargin } from "../equilibria/margin.js";
 import type { StabilityKind } from "../equilibria/classify.js";
 import { closedLoop } from "../policy/closed-loop.js";
+import { RULE_CATALOGUE } from "../policy/rule-catalogue.js";
 import { parseRule, type Rule } from "../policy/rule-spec.js";
 import { fail, ok, type Result } from "../result.js";
 import type { StochasticProjection } from "./risk-metrics.js";
@@ -11,15 +12,6 @@ import type { Uncertainty } from "./uncertainty.js";
 
 /** Most candidate rules in one comparison. */
 export const MAX_COMPARED_RULES = 12;
-
-/** The parameter whose stability margin a comparison reports, per rule kind. */
-export const MARGIN_PARAMETER: Readonly<Record<Rule["kind"], string>> = {
-  "no-harvest": "model.params.K",
-  "constant-catch": "rule.quota",
-  "constant-rate": "rule.rate",
-  "constant-escapement": "rule.escapement",
-  threshold: "rule.maxRate",
-};
 
 /** One candidate rule's deterministic verdict, margin and stochastic outcome. */
 export interface RuleOutcome {
@@ -60,14 +52,14 @@ export function parseRules(input: unknown, field = "rules"): Result<Rule[]> {
 /**
  * The deterministic side of a rule comparison: the scenario model's operating equilibrium
  * under the rule (analyseStability), its verdict in plain words, and the stability margin
- * in the rule's main setting (MARGIN_PARAMETER; stabilityMargin). Runs in a few
+ * in the rule's main setting (the catalogue's `main`; stabilityMargin). Runs in a few
  * milliseconds; the stochastic side (one projection per rule on the same seed, hence the
  * same draws) is run by the caller, in-thread or on the worker pool, and joined here.
  */
 export function ruleOutcome(scenario: Scenario, rule: Rule, projection: StochasticProjection): RuleOutcome {
   const analysis = analyseStability(closedLoop(scenario.model, rule));
   const op = analysis.operating === null ? null : analysis.equilibria[analysis.operating]!;
-  const margin = stabilityMargin(scenario.model, rule, MARGIN_PARAMETER[rule.kind]);
+  const margin = stabilityMargin(scenario.model, rule, RULE_CATALOGUE[rule.kind].main);
   return {
     rule,
     verdict: op ? op.verdict.kind : "collapse",
