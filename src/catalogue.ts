@@ -1,8 +1,11 @@
+import { FIT_METHOD_LABELS, FIT_METHODS } from "./fit/fit-model.js";
+import { LIKELIHOOD_LABELS, LIKELIHOODS } from "./fit/likelihood.js";
 import { FAMILY_IDS, families } from "./models/families.js";
 import { DELAY } from "./models/model-spec.js";
 import { type OrderConstraint, type ParamInfo, UNIT_KINDS } from "./params.js";
 import {
   COMMON_RULE_SETTINGS,
+  DEFAULT_TIMING,
   QUOTA_CHANGE_SETTINGS,
   RULE_CATALOGUE,
   RULE_KINDS,
@@ -54,6 +57,13 @@ export interface Catalogue {
   /** The optional caps on the quota's year-to-year change. */
   readonly quotaChange: readonly ParamInfo[];
   readonly timings: readonly { readonly value: string; readonly label: string }[];
+  /** The timing a rule has when none is given. */
+  readonly defaultTiming: string;
+  /** The choices of a fit. */
+  readonly fitOptions: {
+    readonly likelihoods: readonly { readonly value: string; readonly label: string }[];
+    readonly methods: readonly { readonly value: string; readonly label: string }[];
+  };
   /** The settings of a stochastic projection. */
   readonly uncertainty: readonly ParamInfo[];
   /** Each unit kind in words. */
@@ -93,6 +103,11 @@ export function catalogue(): Catalogue {
     ruleCommon: COMMON_RULE_SETTINGS.map((s) => RULE_SETTINGS[s]),
     quotaChange: QUOTA_CHANGE_SETTINGS.map((s) => RULE_SETTINGS[s]),
     timings: TIMINGS.map((value) => ({ value, label: TIMING_LABELS[value] })),
+    defaultTiming: DEFAULT_TIMING,
+    fitOptions: {
+      likelihoods: LIKELIHOODS.map((value) => ({ value, label: LIKELIHOOD_LABELS[value] })),
+      methods: FIT_METHODS.map((value) => ({ value, label: FIT_METHOD_LABELS[value] })),
+    },
     uncertainty: Object.values(UNCERTAINTY_SETTINGS),
     unitKinds: UNIT_KINDS,
   };

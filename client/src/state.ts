@@ -28,18 +28,13 @@ export const state = {
   series: null as { id: string; name: string; rows: SeriesRow[]; warnings: unknown[] } | null,
   fitId: null as string | null,
   model: null as ModelSpec | null,
-  rule: { kind: "constant-rate", rate: 0.2, surveyLag: 0, timing: "after" } as RuleSpec,
+  /** Set from the catalogue's defaults when the page starts (main.ts). */
+  rule: {} as RuleSpec,
   start: [] as number[],
   horizon: 25,
   startYear: 0,
-  uncertainty: {
-    replicates: 2000,
-    seed: 1,
-    processSd: 0.2,
-    processAutocorrelation: 0,
-    observationSd: 0.1,
-    implementationSd: 0,
-  } as Uncertainty,
+  /** Set from the catalogue's defaults when the page starts (main.ts). */
+  uncertainty: {} as Uncertainty,
   /** The demo (or stored) scenario the page started from, and its candidate rules. */
   scenarioName: "my scenario",
   candidates: [] as { id: string; name: string; spec: RuleSpec }[],

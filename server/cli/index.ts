@@ -2,6 +2,7 @@
 import { parseArgs } from "node:util";
 import { checkCommand, compareCommand, fitCommand, mapCommand, projectCommand } from "./commands.js";
 import { CliError, EXIT } from "./exit-codes.js";
+import { modelsHelp, rulesHelp } from "./help.js";
 import { serve } from "./serve.js";
 
 export const USAGE = `yieldloop — fit growth models to survey counts, test harvest rules, project stock and catch
@@ -14,12 +15,14 @@ usage:
   yieldloop project SCENARIO.json [--replicates N] [--seed N] [--workers N] [--json] [--out FILE.csv]
   yieldloop compare SCENARIO.json [--rules RULES.json] [--replicates N] [--seed N] [--json] [--out FILE.csv]
   yieldloop map     SCENARIO.json --x PATH:FROM:TO:COUNT --y PATH:FROM:TO:COUNT [--json] [--out FILE.csv]
-  yieldloop help
+  yieldloop help [models|rules]
 
 serve listens on 127.0.0.1:8470 unless told otherwise (YIELDLOOP_HOST, YIELDLOOP_PORT); any other
 address needs an API token (--token or YIELDLOOP_TOKEN). The database is YIELDLOOP_DB or a file in
 the user's data folder. A scenario file holds model, rule, start, horizon (and optionally startYear,
-uncertainty and candidate rules under "alternatives"), as in data-demo/scenarios/.
+uncertainty and candidate rules under "alternatives"), as in data-demo/scenarios/; \`yieldloop help
+models\` and \`yieldloop help rules\` list every growth family and harvest rule with their settings,
+units and allowed ranges.
 
 exit codes: 0 done; 1 the input was rejected (the message names the field or row); 2 the command
 line was wrong; 3 an internal failure; 130 interrupted.`;
@@ -57,6 +60,10 @@ export async function main(argv: string[]): Promise<number> {
   }
   const [command, file, ...extra] = parsed.positionals;
   const o = parsed.values;
+  if (command === "help" && (file === "models" || file === "rules")) {
+    process.stdout.write(`${file === "models" ? modelsHelp() : rulesHelp()}\n`);
+    return EXIT.ok;
+  }
   if (!command || command === "help" || o.help) {
     process.stdout.write(`${USAGE}\n`);
     return command || o.help ? EXIT.ok : EXIT.usage;

@@ -1,4 +1,5 @@
 // The express app, built by a factory so tests can drive it with supertest without a port.
+import { catalogue } from "../../src/catalogue.js";
 import { existsSync } from "node:fs";
 import { timingSafeEqual } from "node:crypto";
 import express, { type ErrorRequestHandler, type RequestHandler } from "express";
@@ -67,10 +68,14 @@ export function createApp(opts: AppOptions): express.Express {
         ),
       ),
       openapi: "/api/v1/openapi.json",
+      catalogue: "/api/v1/catalogue",
     });
   });
   const doc = openApiDocument(opts.version);
   api.get("/openapi.json", (_req, res) => res.json(doc));
+  // The catalogue of families, rules and settings the page and the command line are built from.
+  const described = JSON.stringify(catalogue());
+  api.get("/catalogue", (_req, res) => res.type("json").send(described));
   // Results first: a quick analysis is by far the most frequent request (the page asks for one
   // on every slider move), and express tries each router's routes in order.
   api.use(resultRoutes(opts));

@@ -97,6 +97,13 @@ const OPS: Op[] = [
     produces: "text/csv",
   },
   { method: "get", path: "/comparisons/{id}/table.json", summary: "The same table as JSON", ok: 200 },
+  {
+    method: "get",
+    path: "/catalogue",
+    summary:
+      "Every growth family, harvest rule kind and setting: labels, unit kinds, ranges, defaults and sweep ranges",
+    ok: 200,
+  },
   { method: "get", path: "/jobs/{id}", summary: "A job's status and progress", ok: 200 },
   {
     method: "get",

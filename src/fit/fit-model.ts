@@ -11,8 +11,13 @@ import { minimise, type Optimum } from "./minimise.js";
 import { transformFor, type Transform } from "./parameter-transform.js";
 import type { Series } from "./series.js";
 
-export const FIT_METHODS = ["observation", "process"] as const;
-export type FitMethod = (typeof FIT_METHODS)[number];
+/** The error structures a fit can assume, with the words a person reads. */
+export const FIT_METHOD_LABELS = {
+  observation: "observation error (the counts scatter about a deterministic trajectory)",
+  process: "process error (each year's change is noisy, the counts exact)",
+} as const;
+export type FitMethod = keyof typeof FIT_METHOD_LABELS;
+export const FIT_METHODS = Object.keys(FIT_METHOD_LABELS) as [FitMethod, ...FitMethod[]];
 
 export interface FitOptions {
   readonly family: FamilyId;

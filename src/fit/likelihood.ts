@@ -1,8 +1,15 @@
 import { logGamma } from "../numeric/log-gamma.js";
 
 /** The observation models a series can be fitted with. */
-export const LIKELIHOODS = ["lognormal", "normal", "poisson", "negative-binomial"] as const;
-export type LikelihoodKind = (typeof LIKELIHOODS)[number];
+/** The observation likelihoods a fit can use, with the words a person reads. */
+export const LIKELIHOOD_LABELS = {
+  lognormal: "lognormal (multiplicative survey error)",
+  normal: "normal (additive survey error)",
+  poisson: "Poisson (counts)",
+  "negative-binomial": "negative binomial (overdispersed counts)",
+} as const;
+export type LikelihoodKind = keyof typeof LIKELIHOOD_LABELS;
+export const LIKELIHOODS = Object.keys(LIKELIHOOD_LABELS) as [LikelihoodKind, ...LikelihoodKind[]];
 
 /**
  * Negative log-likelihood of observations y_t given predictions μ_t = q·N_t, with the scale

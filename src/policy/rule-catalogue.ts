@@ -16,6 +16,8 @@ export const TIMING_LABELS = {
 } as const;
 export type Timing = keyof typeof TIMING_LABELS;
 export const TIMINGS = Object.keys(TIMING_LABELS) as [Timing, ...Timing[]];
+/** The timing of a rule spec that gives none. */
+export const DEFAULT_TIMING: Timing = "after";
 
 /** Every numeric rule setting, described once: label, unit kind, range, default and sweep. */
 export const RULE_SETTINGS = {

@@ -6,6 +6,7 @@ import type { HarvestRule } from "./harvest-rule.js";
 import { objectIssue } from "../object-input.js";
 import {
   COMMON_RULE_SETTINGS,
+  DEFAULT_TIMING,
   QUOTA_CHANGE_SETTINGS,
   RULE_CATALOGUE,
   RULE_KINDS,
@@ -53,7 +54,7 @@ function kindSchema(kind: RuleKind) {
   const shape: Record<string, z.ZodType> = { kind: z.literal(kind) };
   for (const s of RULE_CATALOGUE[kind].settings) shape[s] = n(s);
   for (const s of COMMON_RULE_SETTINGS) shape[s] = n(s).default(RULE_SETTINGS[s].default);
-  shape.timing = z.enum(TIMINGS).default("after").describe("harvest before or after reproduction");
+  shape.timing = z.enum(TIMINGS).default(DEFAULT_TIMING).describe("harvest before or after reproduction");
   const caps: Record<string, z.ZodNumber> = {};
   for (const s of QUOTA_CHANGE_SETTINGS) caps[s] = n(s);
   shape.quotaChange = z

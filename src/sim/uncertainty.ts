@@ -21,7 +21,7 @@ export const UNCERTAINTY_SETTINGS = {
     unitKind: "count",
     description: "the number of simulated futures",
     range: { min: 10, max: MAX_REPLICATES, minInclusive: true },
-    default: 1000,
+    default: 2000,
     sweep: [100, 100000],
     scale: "log",
     integer: true,
@@ -60,7 +60,7 @@ export const UNCERTAINTY_SETTINGS = {
     unitKind: "log-sd",
     description: "lognormal error of the survey the rule acts on",
     range: { min: 0, max: 3, minInclusive: true },
-    default: 0,
+    default: 0.1,
     sweep: [0, 1],
   }),
   implementationSd: param({

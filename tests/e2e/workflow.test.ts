@@ -1,6 +1,7 @@
 import { readFileSync } from "node:fs";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Page } from "playwright-core";
+import { catalogue } from "../../src/catalogue.js";
 import { HAVE_CHROMIUM, newPage, shot, startSession, type Session } from "./browser.js";
 
 // The whole workflow in a real browser on both invented demo scenarios, asserting on what the
@@ -38,6 +39,46 @@ describe.skipIf(!HAVE_CHROMIUM)("the web page, end to end in chromium", { timeou
   }, 120_000);
   afterAll(async () => {
     await s?.close();
+  });
+
+  it("builds its family list, rule forms and labels from the catalogue, in the catalogue's order", async () => {
+    const { page, errors } = await newPage(s);
+    const cat = catalogue();
+    await page.click("#tab-fit");
+    const boxes = await page
+      .locator('input[id^="fam-"]')
+      .evaluateAll((els) =>
+        els.map((e) => [(e as HTMLInputElement).value, e.parentElement?.textContent?.trim()]),
+      );
+    expect(boxes).toEqual(cat.families.map((f) => [f.id, f.label]));
+    await page.click("#tab-counts");
+    await page.click(`button[data-demo="${DEMOS[0]!.name}"]`);
+    await page.waitForSelector("#series-table tbody tr");
+    await page.click("#tab-stability");
+    await page.waitForSelector("#rule-kind");
+    const kinds = await page
+      .locator("#rule-kind option")
+      .evaluateAll((els) => els.map((e) => [(e as HTMLOptionElement).value, e.textContent]));
+    expect(kinds).toEqual(cat.rules.map((r) => [r.kind, r.label]));
+    // Each rule kind's form has one slider per catalogue setting, labelled and ranged from it.
+    for (const r of cat.rules) {
+      await page.selectOption("#rule-kind", r.kind);
+      for (const setting of [...r.settings, ...cat.ruleCommon]) {
+        const input = page.locator(`#rule-${setting.name}`);
+        expect(await input.getAttribute("type")).toBe("range");
+        const label = await page.locator(`label[for="rule-${setting.name}"]`).textContent();
+        expect(label).toContain(setting.label);
+        expect(Number(await input.getAttribute("min"))).toBeGreaterThanOrEqual(setting.min);
+        if (
+          setting.defaultTimesK === undefined &&
+          setting.name !== "stocking" &&
+          setting.name !== "surveyLag"
+        )
+          expect(Number(await input.getAttribute("value"))).toBe(setting.default);
+      }
+    }
+    expect(errors).toEqual([]);
+    await page.close();
   });
 
   for (const demo of DEMOS) {

@@ -3,6 +3,7 @@ import { mkdtempSync, readFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { fileURLToPath } from "node:url";
+import { catalogue } from "../../src/catalogue.js";
 import { describe, expect, it } from "vitest";
 
 // The command line's documented behaviour (README and `yieldloop help`): output formats
@@ -128,5 +129,20 @@ describe("yieldloop command line", { timeout: 60_000 }, () => {
     expect(s.status).toBe(2);
     expect(s.stderr).toMatch(/needs an API token/);
     expect(run("help").status).toBe(0);
+  });
+  it("help models and help rules list the catalogue: every family, rule kind and setting with its label", () => {
+    const cat = catalogue();
+    const models = run("help", "models");
+    expect(models.status).toBe(0);
+    for (const f of cat.families) {
+      expect(models.stdout).toContain(`${f.id} — ${f.label}`);
+      for (const p of f.params) expect(models.stdout).toContain(`model.params.${p.name}`);
+    }
+    const rules = run("help", "rules");
+    expect(rules.status).toBe(0);
+    for (const r of cat.rules) {
+      expect(rules.stdout).toContain(`${r.kind} — ${r.label}`);
+      for (const s2 of r.settings) expect(rules.stdout).toContain(`${s2.label}, ${s2.unit}`);
+    }
   });
 });

@@ -1,19 +1,9 @@
 // Step 2: fit the growth families, compare them by AICc, choose the model to carry on with.
 import { getJson, postJson, type JobView } from "../api.js";
+import { catalogue, familyOf } from "../catalogue.js";
 import { fitChart, residualChart } from "../charts.js";
 import { changed, NUISANCE, onChange, state } from "../state.js";
 import { el, fmt, runJob, setStatus, show } from "../ui.js";
-
-const FAMILIES = [
-  "discrete-logistic",
-  "ricker",
-  "beverton-holt",
-  "shepherd",
-  "hassell",
-  "theta-logistic",
-  "gompertz",
-  "allee-ricker",
-];
 
 interface Skipped {
   family: string;
@@ -37,25 +27,27 @@ interface Fit {
   identifiability: { trustworthy: boolean; problems: { code: string }[] };
 }
 
-const label = (f: Fit) => `${f.family}${f.delay ? ` (delay ${f.delay})` : ""}`;
+const label = (f: Fit) => `${familyOf(f.family)?.label ?? f.family}${f.delay ? ` (delay ${f.delay})` : ""}`;
 const withInterval = (v: number | undefined, ci: { lower: number; upper: number } | null | undefined) =>
   v === undefined ? "—" : ci ? `${fmt(v)} (${fmt(ci.lower, 3)}–${fmt(ci.upper, 3)})` : fmt(v);
 
 export function fitStep(root: HTMLElement): void {
+  const FAMILIES = catalogue().families;
   const boxes = FAMILIES.map((f) =>
-    el("input", { type: "checkbox", id: `fam-${f}`, value: f, checked: true }),
+    el("input", { type: "checkbox", id: `fam-${f.id}`, value: f.id, checked: true }),
   );
   const delay1 = el("input", { type: "checkbox", id: "fit-delay1", checked: true });
   const likelihood = el(
     "select",
     { id: "fit-likelihood" },
-    ...["lognormal", "normal", "poisson", "negative-binomial"].map((l) => el("option", { value: l }, l)),
+    ...catalogue().fitOptions.likelihoods.map((l) => el("option", { value: l.value }, l.label)),
   );
   const timing = el(
     "select",
     { id: "fit-timing" },
-    el("option", { value: "after" }, "catch after reproduction"),
-    el("option", { value: "before" }, "catch before reproduction"),
+    ...catalogue().timings.map((t) =>
+      el("option", { value: t.value, selected: t.value === catalogue().defaultTiming }, `catch ${t.label}`),
+    ),
   );
   const job = el("div", { class: "job-area" });
   const results = el("div", { id: "fit-results" });
@@ -214,7 +206,9 @@ export function fitStep(root: HTMLElement): void {
       el(
         "div",
         { class: "checks" },
-        ...FAMILIES.map((f, i) => el("label", { for: `fam-${f}` }, boxes[i]!, ` ${f}`)),
+        ...FAMILIES.map((f, i) =>
+          el("label", { for: `fam-${f.id}`, title: f.equation }, boxes[i]!, ` ${f.label}`),
+        ),
       ),
     ),
     el(
@@ -234,7 +228,7 @@ export function fitStep(root: HTMLElement): void {
   const sync = () => {
     needSeries.hidden = Boolean(state.series);
     button.disabled = !state.series;
-    if (state.rule.timing === "before" || state.rule.timing === "after")
+    if (catalogue().timings.some((t) => t.value === state.rule.timing))
       timing.value = String(state.rule.timing);
   };
   onChange(sync);

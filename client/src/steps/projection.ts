@@ -1,6 +1,7 @@
 // Step 4: projections under uncertainty (fan charts and the risk table) and candidate rules
 // compared on the same random draws.
 import { getJson, postJson, type JobView } from "../api.js";
+import { catalogue, ruleOf } from "../catalogue.js";
 import { fanChart } from "../charts.js";
 import { changed, onChange, scenarioSpec, state, type RuleSpec, type Uncertainty } from "../state.js";
 import { el, fmt, pct, runJob, show, table } from "../ui.js";
@@ -25,25 +26,32 @@ interface Projection {
   };
 }
 
-const FIELDS: { key: keyof Uncertainty; label: string; step: string; min: number; max: number }[] = [
-  { key: "replicates", label: "replicates", step: "1", min: 10, max: 1_000_000 },
-  { key: "seed", label: "seed", step: "1", min: 0, max: 2147483647 },
-  { key: "processSd", label: "process noise (sd of log)", step: "0.01", min: 0, max: 3 },
-  { key: "processAutocorrelation", label: "its autocorrelation", step: "0.05", min: -0.99, max: 0.99 },
-  { key: "observationSd", label: "survey error (sd of log)", step: "0.01", min: 0, max: 3 },
-  { key: "implementationSd", label: "catch error (sd of log)", step: "0.01", min: 0, max: 3 },
+/** The projection settings the form shows, described by the catalogue (labels, ranges, steps). */
+const FIELD_KEYS: (keyof Uncertainty)[] = [
+  "replicates",
+  "seed",
+  "processSd",
+  "processAutocorrelation",
+  "observationSd",
+  "implementationSd",
 ];
+const fields = () =>
+  FIELD_KEYS.map((key) => {
+    const s = catalogue().uncertainty.find((u) => u.name === key)!;
+    return { key, label: s.label, step: s.integer ? "1" : "0.01", min: s.min, max: s.max };
+  });
 
 export function ruleName(r: RuleSpec): string {
-  const parts = [r.kind];
-  for (const [k, v] of Object.entries(r))
-    if (!["kind", "timing", "stocking", "surveyLag", "quotaChange"].includes(k) && typeof v === "number")
-      parts.push(`${k} ${fmt(v)}`);
-  if (r.surveyLag) parts.push(`lag ${r.surveyLag}`);
+  const kind = ruleOf(r.kind);
+  const parts = [kind?.label ?? r.kind];
+  for (const s of kind?.settings ?? [])
+    if (typeof r[s.name] === "number") parts.push(`${s.label} ${fmt(Number(r[s.name]))}`);
+  if (r.surveyLag) parts.push(`survey lag ${r.surveyLag}`);
   return parts.join(", ");
 }
 
 export function projectionStep(root: HTMLElement): void {
+  const FIELDS = fields();
   const inputs = FIELDS.map((f) =>
     el("input", { type: "number", id: `u-${f.key}`, step: f.step, min: f.min, max: f.max }),
   );

@@ -4,6 +4,18 @@
 import { getJson, postJson, type JobView } from "../api.js";
 import { bifurcationChart, eigenChart, regimeChart } from "../charts.js";
 import { changed, onChange, scenarioSpec, state, type RuleSpec } from "../state.js";
+import {
+  catalogue,
+  defaultRule,
+  familyOf,
+  labelWithUnit,
+  unitText,
+  ruleOf,
+  settingAt,
+  sliderOf,
+  sweepOf,
+  variablePaths,
+} from "../catalogue.js";
 import { el, errorBox, fmt, runJob, setStatus, show, table } from "../ui.js";
 
 interface Stability {
@@ -30,54 +42,6 @@ interface Margin {
   decrease: { boundary: number | null; kind: string | null; margin: number | null; searchedTo: number };
 }
 
-const KINDS = ["no-harvest", "constant-catch", "constant-rate", "constant-escapement", "threshold"];
-const SETTINGS: Record<string, string[]> = {
-  "no-harvest": [],
-  "constant-catch": ["quota"],
-  "constant-rate": ["rate"],
-  "constant-escapement": ["escapement"],
-  threshold: ["lowerTrigger", "upperTrigger", "maxRate"],
-};
-const MAIN: Record<string, string> = {
-  "no-harvest": "model.params.K",
-  "constant-catch": "rule.quota",
-  "constant-rate": "rule.rate",
-  "constant-escapement": "rule.escapement",
-  threshold: "rule.maxRate",
-};
-
-/** A slider's range for a setting, from the model's K. */
-function range(name: string, K: number): { min: number; max: number; step: number } {
-  if (name === "rate" || name === "maxRate") return { min: 0, max: 0.95, step: 0.005 };
-  if (name === "quota") return { min: 0, max: Math.round(K * 0.6), step: Math.max(K / 1000, 0.001) };
-  return { min: 0, max: Math.round(K * 1.5), step: Math.max(K / 1000, 0.001) };
-}
-
-/** A sweep's default range for a parameter path. */
-function sweepRange(path: string, current: number, K: number): [number, number] {
-  if (path.endsWith(".rate") || path.endsWith(".maxRate")) return [0, 0.9];
-  if (path.endsWith(".r")) return [0.05, Math.max(3, 2 * current)];
-  if (path.endsWith(".R0")) return [1.05, Math.max(6, 2 * current)];
-  if (path.endsWith(".quota")) return [0, 0.6 * K];
-  if (path.endsWith(".K")) return [0.2 * K, 3 * K];
-  return [0, Math.max(1.5 * K, 2 * current)];
-}
-
-const defaults = (kind: string, K: number): RuleSpec => {
-  switch (kind) {
-    case "constant-catch":
-      return { kind, quota: Math.round(0.1 * K) };
-    case "constant-rate":
-      return { kind, rate: 0.2 };
-    case "constant-escapement":
-      return { kind, escapement: Math.round(0.5 * K) };
-    case "threshold":
-      return { kind, lowerTrigger: Math.round(0.2 * K), upperTrigger: Math.round(0.5 * K), maxRate: 0.3 };
-    default:
-      return { kind };
-  }
-};
-
 export function stabilityStep(root: HTMLElement): void {
   const modelBox = el("fieldset", { id: "model-box" });
   const ruleBox = el("fieldset", { id: "rule-box" });
@@ -103,15 +67,9 @@ export function stabilityStep(root: HTMLElement): void {
 
   const K = () => state.model?.params.K ?? 1000;
 
-  function paths(): string[] {
-    const m = state.model;
-    if (!m) return [];
-    return [
-      ...Object.keys(m.params).map((p) => `model.params.${p}`),
-      ...SETTINGS[state.rule.kind]!.map((s) => `rule.${s}`),
-      "rule.surveyLag",
-    ];
-  }
+  const paths = () => variablePaths(state.model, state.rule);
+  const labelOf = (path: string) => settingAt(path, state.model, state.rule)?.label ?? path;
+  const mainPath = () => ruleOf(state.rule.kind)?.main ?? paths()[0]!;
 
   function renderModel(): void {
     const m = state.model;
@@ -121,12 +79,19 @@ export function stabilityStep(root: HTMLElement): void {
     }
     show(
       modelBox,
-      el("legend", {}, `Model: ${m.family}${m.delay ? `, delay ${m.delay}` : ""}`),
+      el(
+        "legend",
+        {},
+        `Model: ${familyOf(m.family)?.label ?? m.family}${m.delay ? `, delay ${m.delay}` : ""}`,
+      ),
       ...Object.entries(m.params).map(([k, v]) =>
         el(
           "label",
           { class: "field" },
-          `${k} `,
+          `${(() => {
+            const s = settingAt(`model.params.${k}`, m, state.rule);
+            return s ? labelWithUnit(s) : k;
+          })()} `,
           el("input", {
             type: "number",
             value: String(Number(v.toPrecision(6))),
@@ -152,21 +117,19 @@ export function stabilityStep(root: HTMLElement): void {
       {
         id: "rule-kind",
         onchange: () => {
-          state.rule = {
-            ...defaults(kind.value, K()),
-            surveyLag: r.surveyLag ?? 0,
-            timing: r.timing ?? "after",
-          };
+          state.rule = defaultRule(kind.value, K(), r);
           renderRule();
           fillMarginParams();
           schedule();
         },
       },
-      ...KINDS.map((k) => el("option", { value: k, selected: k === r.kind }, k)),
+      ...catalogue().rules.map((k) => el("option", { value: k.kind, selected: k.kind === r.kind }, k.label)),
     );
-    const sliders = SETTINGS[r.kind]!.map((name) => {
-      const { min, max, step } = range(name, K());
-      const value = Number(r[name] ?? min);
+    const settings = ruleOf(r.kind)?.settings ?? [];
+    const sliders = settings.map((s) => {
+      const name = s.name;
+      const value = Number(r[name] ?? s.default);
+      const { min, max, step } = sliderOf(s, K(), value);
       const out = el("output", { for: `rule-${name}`, id: `rule-${name}-value` }, fmt(value));
       const input = el("input", {
         type: "range",
@@ -181,25 +144,40 @@ export function stabilityStep(root: HTMLElement): void {
           schedule();
         },
       });
-      return el("div", { class: "slider" }, el("label", { for: `rule-${name}` }, name), input, out);
+      return el(
+        "div",
+        { class: "slider" },
+        el("label", { for: `rule-${name}`, title: s.description }, s.label, el("small", {}, unitText(s))),
+        input,
+        out,
+      );
     });
-    const lagOut = el(
-      "output",
-      { for: "rule-surveyLag", id: "rule-surveyLag-value" },
-      String(r.surveyLag ?? 0),
-    );
-    const lag = el("input", {
-      type: "range",
-      id: "rule-surveyLag",
-      min: 0,
-      max: 5,
-      step: 1,
-      value: String(r.surveyLag ?? 0),
-      oninput: () => {
-        state.rule = { ...state.rule, surveyLag: Number(lag.value) };
-        lagOut.textContent = lag.value;
-        schedule();
-      },
+    // The settings every rule has (stocking, survey lag), from the catalogue like the rule's own.
+    const common = catalogue().ruleCommon.map((s) => {
+      const name = s.name;
+      const value = Number(r[name] ?? s.default);
+      const { min, max, step } = sliderOf(s, K(), value);
+      const out = el("output", { for: `rule-${name}`, id: `rule-${name}-value` }, fmt(value));
+      const input = el("input", {
+        type: "range",
+        id: `rule-${name}`,
+        min,
+        max: Math.max(max, value),
+        step,
+        value: String(value),
+        oninput: () => {
+          state.rule = { ...state.rule, [name]: Number(input.value) };
+          out.textContent = fmt(Number(input.value));
+          schedule();
+        },
+      });
+      return el(
+        "div",
+        { class: "slider" },
+        el("label", { for: `rule-${name}`, title: s.description }, s.label, el("small", {}, unitText(s))),
+        input,
+        out,
+      );
     });
     const when = el(
       "select",
@@ -210,8 +188,13 @@ export function stabilityStep(root: HTMLElement): void {
           schedule();
         },
       },
-      el("option", { value: "after", selected: r.timing !== "before" }, "after reproduction"),
-      el("option", { value: "before", selected: r.timing === "before" }, "before reproduction"),
+      ...catalogue().timings.map((t) =>
+        el(
+          "option",
+          { value: t.value, selected: (r.timing ?? catalogue().defaultTiming) === t.value },
+          t.label,
+        ),
+      ),
     );
     show(
       ruleBox,
@@ -219,21 +202,15 @@ export function stabilityStep(root: HTMLElement): void {
       el("label", { for: "rule-kind" }, "Rule "),
       kind,
       ...sliders,
-      el(
-        "div",
-        { class: "slider" },
-        el("label", { for: "rule-surveyLag" }, "survey lag (years)"),
-        lag,
-        lagOut,
-      ),
+      ...common,
       el("label", { for: "rule-timing" }, "Catch taken "),
       when,
     );
   }
 
   function fillMarginParams(): void {
-    const main = MAIN[state.rule.kind]!;
-    show(marginParam, ...paths().map((p) => el("option", { value: p, selected: p === main }, p)));
+    const main = mainPath();
+    show(marginParam, ...paths().map((p) => el("option", { value: p, selected: p === main }, labelOf(p))));
   }
 
   /** Sends one preview analysis at a time; a move made meanwhile is sent when it returns. */
@@ -330,7 +307,7 @@ export function stabilityStep(root: HTMLElement): void {
           : `${word}: ${m.stableNow ? "stability is lost" : "stability is gained"} at ${fmt(s.boundary)} (${s.kind})`;
       show(
         marginOut,
-        `${m.parameter} is ${fmt(m.current)}. `,
+        `${labelOf(m.parameter)} is ${fmt(m.current)}. `,
         side("Raising it", m.increase),
         "; ",
         side("lowering it", m.decrease),
@@ -388,15 +365,16 @@ export function stabilityStep(root: HTMLElement): void {
         ...paths().map((p, k) =>
           el(
             "option",
-            { value: p, selected: k === (two ? (i === 0 ? 0 : paths().indexOf(MAIN[state.rule.kind]!)) : 0) },
-            p,
+            { value: p, selected: k === (two ? (i === 0 ? 0 : paths().indexOf(mainPath())) : 0) },
+            labelOf(p),
           ),
         ),
       );
       const from = el("input", { type: "number", id: `${id}-${a}-from`, step: "any" });
       const to = el("input", { type: "number", id: `${id}-${a}-to`, step: "any" });
       const fill = () => {
-        const [lo, hi] = sweepRange(sel.value, current(sel.value), K());
+        const setting = settingAt(sel.value, state.model, state.rule);
+        const [lo, hi] = setting ? sweepOf(setting, K(), current(sel.value)) : [0, 1];
         from.value = String(Number(lo.toPrecision(4)));
         to.value = String(Number(hi.toPrecision(4)));
       };
