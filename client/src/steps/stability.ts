@@ -3,7 +3,7 @@
 // and a regime map. Slider moves redraw from a preview analysis (not stored).
 import { getJson, postJson, type JobView } from "../api.js";
 import { bifurcationChart, eigenChart, regimeChart } from "../charts.js";
-import { changed, onChange, scenarioSpec, state, } from "../state.js";
+import { changed, onChange, scenarioSpec, state } from "../state.js";
 import {
   catalogue,
   defaultRule,
