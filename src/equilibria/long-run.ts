@@ -63,8 +63,17 @@ export const MAX_PERIOD = 64;
  * The thresholds 0.005 and 80% are common practice, no source.
  */
 export function longRun(loop: ClosedLoop, start: Float64Array, options: LongRunOptions = {}): LongRun {
-  // A one-number state goes through the batched path (one lane), the same numbers either way.
+  // A one-number state goes through the batched path (one lane), the same numbers either way
+  // (tests/equilibria/long-run-lanes.test.ts holds the lanes to longRunByOrbit).
   if (loop.layout.dimension === 1) return longRunBatch([loop], start, options)[0]!;
+  return longRunByOrbit(loop, start, options);
+}
+
+/**
+ * longRun by the plain path for any state: the full state vector stepped by loop.step, one
+ * year at a time. The reference the batched lanes are tested against.
+ */
+export function longRunByOrbit(loop: ClosedLoop, start: Float64Array, options: LongRunOptions = {}): LongRun {
   const burnIn = options.burnIn ?? 1000;
   const observe = Math.max(8, options.observe ?? 128);
   const bound = 1e6 * loop.model.params.K!;
@@ -93,7 +102,7 @@ export function longRunBatch(
   const scalar: number[] = [];
   for (let c = 0; c < m; c++) {
     if (loops[c]!.layout.dimension === 1) scalar.push(c);
-    else out[c] = longRun(loops[c]!, start, options);
+    else out[c] = longRunByOrbit(loops[c]!, start, options);
   }
   const k = scalar.length;
   const n = new Float64Array(k);
