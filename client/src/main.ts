@@ -1,6 +1,6 @@
 // The page: five steps as tabs (arrow keys move between them), each talking to the API.
 import { catalogue, defaultRule, loadCatalogue } from "./catalogue.js";
-import { changed, state, type Uncertainty } from "./state.js";
+import { changed, state, UNCERTAINTY_KEYS, type Uncertainty } from "./state.js";
 import { countsStep } from "./steps/counts.js";
 import { fitStep } from "./steps/fit.js";
 import { projectionStep } from "./steps/projection.js";
@@ -14,15 +14,6 @@ const steps: [string, (root: HTMLElement) => void][] = [
   ["projection", projectionStep],
   ["report", reportStep],
 ];
-// The projection settings the page keeps in its state (the others take the API's defaults).
-const KEPT: (keyof Uncertainty)[] = [
-  "replicates",
-  "seed",
-  "processSd",
-  "processAutocorrelation",
-  "observationSd",
-  "implementationSd",
-];
 
 // Every list, form, label and default of the page comes from the catalogue: load it first.
 async function start(): Promise<void> {
@@ -30,7 +21,9 @@ async function start(): Promise<void> {
   // A new series starts unharvested (the catalogue's first rule kind) until a rule is chosen.
   state.rule = defaultRule(catalogue().rules[0]!.kind, 1000);
   const defaults = Object.fromEntries(catalogue().uncertainty.map((s) => [s.name, s.default]));
-  state.uncertainty = Object.fromEntries(KEPT.map((k) => [k, defaults[k]])) as unknown as Uncertainty;
+  state.uncertainty = Object.fromEntries(
+    UNCERTAINTY_KEYS.map((k) => [k, defaults[k]]),
+  ) as unknown as Uncertainty;
   for (const [name, build] of steps) build(document.getElementById(`step-${name}`)!);
   wireTabs();
   changed();

@@ -15,6 +15,16 @@ export interface SeriesRow {
   cv: number | null;
 }
 
+/** The projection settings the page keeps and shows (the others take the API's defaults). */
+export const UNCERTAINTY_KEYS = [
+  "replicates",
+  "seed",
+  "processSd",
+  "processAutocorrelation",
+  "observationSd",
+  "implementationSd",
+] as const;
+
 export interface Uncertainty {
   replicates: number;
   seed: number;

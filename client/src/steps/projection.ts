@@ -3,7 +3,7 @@
 import { getJson, postJson, type JobView } from "../api.js";
 import { catalogue, ruleOf } from "../catalogue.js";
 import { fanChart } from "../charts.js";
-import { changed, onChange, scenarioSpec, state, type RuleSpec, type Uncertainty } from "../state.js";
+import { changed, onChange, scenarioSpec, state, type RuleSpec, UNCERTAINTY_KEYS } from "../state.js";
 import { el, fmt, pct, runJob, show, table } from "../ui.js";
 
 interface Projection {
@@ -27,16 +27,8 @@ interface Projection {
 }
 
 /** The projection settings the form shows, described by the catalogue (labels, ranges, steps). */
-const FIELD_KEYS: (keyof Uncertainty)[] = [
-  "replicates",
-  "seed",
-  "processSd",
-  "processAutocorrelation",
-  "observationSd",
-  "implementationSd",
-];
 const fields = () =>
-  FIELD_KEYS.map((key) => {
+  UNCERTAINTY_KEYS.map((key) => {
     const s = catalogue().uncertainty.find((u) => u.name === key)!;
     return { key, label: s.label, step: s.integer ? "1" : "0.01", min: s.min, max: s.max };
   });

@@ -125,35 +125,8 @@ export function stabilityStep(root: HTMLElement): void {
       },
       ...catalogue().rules.map((k) => el("option", { value: k.kind, selected: k.kind === r.kind }, k.label)),
     );
-    const settings = ruleOf(r.kind)?.settings ?? [];
-    const sliders = settings.map((s) => {
-      const name = s.name;
-      const value = Number(r[name] ?? s.default);
-      const { min, max, step } = sliderOf(s, K(), value);
-      const out = el("output", { for: `rule-${name}`, id: `rule-${name}-value` }, fmt(value));
-      const input = el("input", {
-        type: "range",
-        id: `rule-${name}`,
-        min,
-        max: Math.max(max, value),
-        step,
-        value: String(value),
-        oninput: () => {
-          state.rule = { ...state.rule, [name]: Number(input.value) };
-          out.textContent = fmt(Number(input.value));
-          schedule();
-        },
-      });
-      return el(
-        "div",
-        { class: "slider" },
-        el("label", { for: `rule-${name}`, title: s.description }, s.label, el("small", {}, unitText(s))),
-        input,
-        out,
-      );
-    });
-    // The settings every rule has (stocking, survey lag), from the catalogue like the rule's own.
-    const common = catalogue().ruleCommon.map((s) => {
+    // One slider per setting: the rule's own, then those every rule has (stocking, survey lag).
+    const sliders = [...(ruleOf(r.kind)?.settings ?? []), ...catalogue().ruleCommon].map((s) => {
       const name = s.name;
       const value = Number(r[name] ?? s.default);
       const { min, max, step } = sliderOf(s, K(), value);
@@ -202,7 +175,6 @@ export function stabilityStep(root: HTMLElement): void {
       el("label", { for: "rule-kind" }, "Rule "),
       kind,
       ...sliders,
-      ...common,
       el("label", { for: "rule-timing" }, "Catch taken "),
       when,
     );
