@@ -1,10 +1,9 @@
-// The quick-analysis thread (a one-thread piscina pool, see quick-analyses.ts): loads the
-// TypeScript sources with tsx, then answers each batch of tasks it is given.
+// The quick-analysis thread (see quick-analyses.ts): loads the TypeScript sources with tsx,
+// then answers each batch of tasks it is sent with one message, in the order they came.
+import { parentPort } from "node:worker_threads";
 import { register } from "tsx/esm/api";
 
 register();
 const { runQuickBatch } = await import("./quick-tasks.ts");
 
-export default function (batch) {
-  return runQuickBatch(batch);
-}
+parentPort.on("message", (batch) => parentPort.postMessage(runQuickBatch(batch)));
