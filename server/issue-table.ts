@@ -32,6 +32,7 @@ export const ISSUE_TABLE: Readonly<Record<IssueCode, IssueEntry>> = {
   too_short: invalid("A value is too short"),
   csv_malformed: csv,
   csv_missing_column: csv,
+  csv_unrecognised_column: csv,
   csv_cell: csv,
   csv_duplicate_year: csv,
   csv_no_observations: csv,

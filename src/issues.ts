@@ -34,6 +34,7 @@ export type Issue =
   | { code: "no_finite_msy"; field: string; value: number; family: string }
   | { code: "csv_malformed"; row: number; detail: string }
   | { code: "csv_missing_column"; column: string; allowed: readonly string[] }
+  | { code: "csv_unrecognised_column"; column: string; allowed: readonly string[] }
   | { code: "csv_cell"; row: number; column: string; value: string; expected: string }
   | { code: "csv_duplicate_year"; row: number; column: string; year: number; firstRow: number }
   | { code: "csv_no_observations"; column: string }
@@ -92,6 +93,8 @@ export function describeIssue(issue: Issue): string {
       return `row ${issue.row}: the CSV is malformed (${issue.detail})`;
     case "csv_missing_column":
       return `the CSV needs a "${issue.column}" column (one of: ${issue.allowed.join(", ")})`;
+    case "csv_unrecognised_column":
+      return `column "${issue.column}" looks like a catch, stocking or error column but is not one of the names read (${issue.allowed.join(", ")}; a unit may follow in brackets, as "catch (t)"); rename it, or remove it if it is not needed`;
     case "csv_cell":
       return `row ${issue.row}, column "${issue.column}": "${issue.value}" is not ${issue.expected}`;
     case "csv_duplicate_year":

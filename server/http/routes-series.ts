@@ -45,7 +45,7 @@ export function seriesRoutes(ctx: AppContext): Router {
     res
       .status(201)
       .location(`/api/v1/series/${rec.id}`)
-      .json({ ...rec, links: links(rec.id) });
+      .json({ ...rec, columns: series.columns, links: links(rec.id) });
   });
   r.get("/series", (req, res) => {
     const page = pageOf(req, res);

@@ -1,6 +1,7 @@
 import { parse } from "csv-parse/sync";
 import type { Issue } from "../issues.js";
 import { fail, ok, type Result } from "../result.js";
+import { type ColumnRole, mapColumns, type SeriesColumn } from "./series-columns.js";
 
 /** Largest number of data rows accepted in one series. */
 export const MAX_SERIES_ROWS = 10_000;
@@ -19,14 +20,14 @@ export interface Series {
   /** Further index columns by name, aligned with `years`. */
   readonly indices: Record<string, (number | null)[]>;
   readonly warnings: SeriesWarning[];
+  /** Every column of the file: what it was read as, and the unit its header declared (absent for a series built in code). */
+  readonly columns?: SeriesColumn[];
 }
 
 export type SeriesWarning =
   | { code: "years_sorted" }
   | { code: "years_missing"; years: number[] }
   | { code: "catch_not_recorded"; years: number[] };
-
-const COUNT_NAMES = ["count", "index", "abundance"];
 
 /**
  * Parses a tidy series CSV (RFC 4180, one header row): `year`, `count` (or `index` /
@@ -78,17 +79,16 @@ function readSeries(text: string, collect: Issue[] | null): Result<Series> {
   if (records.length === 0) return fail({ code: "csv_missing_column", column: "year", allowed: ["year"] });
   if (records.length - 1 > MAX_SERIES_ROWS)
     return fail({ code: "csv_too_large", rows: records.length - 1, maximum: MAX_SERIES_ROWS });
-  const header = records[0]!.map((h) => h.toLowerCase());
-  const yearCol = header.indexOf("year");
-  if (yearCol < 0) return fail({ code: "csv_missing_column", column: "year", allowed: ["year"] });
-  const countCol = header.findIndex((h) => COUNT_NAMES.includes(h));
-  if (countCol < 0) return fail({ code: "csv_missing_column", column: "count", allowed: COUNT_NAMES });
-  const catchCol = header.indexOf("catch");
-  const stockCol = header.indexOf("stocking");
-  const cvCol = header.indexOf("cv");
-  const extra = header
-    .map((_h, i) => i)
-    .filter((i) => ![yearCol, countCol, catchCol, stockCol, cvCol].includes(i));
+  const mapped = mapColumns(records[0]!);
+  if (!mapped.ok) return fail(mapped.issue);
+  const columns = mapped.columns;
+  const col = (role: ColumnRole) => columns.findIndex((c) => c.readAs === role);
+  const yearCol = col("year");
+  const countCol = col("count");
+  const catchCol = col("catch");
+  const stockCol = col("stocking");
+  const cvCol = col("cv");
+  const extra = columns.map((_c, i) => i).filter((i) => columns[i]!.readAs === "index");
 
   type Row = {
     line: number;
@@ -249,5 +249,5 @@ function readSeries(text: string, collect: Issue[] | null): Result<Series> {
   }
   if (missingYears.length > 0) warnings.push({ code: "years_missing", years: missingYears });
   if (unrecordedCatch.length > 0) warnings.push({ code: "catch_not_recorded", years: unrecordedCatch });
-  return ok({ years, ...series, indices, warnings });
+  return ok({ years, ...series, indices, warnings, columns });
 }

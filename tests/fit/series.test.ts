@@ -109,3 +109,33 @@ describe("every problem of a CSV, row by row", () => {
     ]);
   });
 });
+
+// Column mapping: what each column was read as is said, and a column that looks like a catch
+// but is not one of the names read is refused rather than read as an index (rules of this
+// project, no external source).
+describe("series columns", () => {
+  it("reads a unit from the header and says what every column was read as", () => {
+    const s = unwrap(parseSeriesCsv("Year,Index (kg/h),Catch (t),survey2\n2000,10,1,3\n2001,12,2,4\n"));
+    expect(s.columns).toEqual([
+      { column: "Year", readAs: "year", unit: null },
+      { column: "Index (kg/h)", readAs: "count", unit: "kg/h" },
+      { column: "Catch (t)", readAs: "catch", unit: "t" },
+      { column: "survey2", readAs: "index", unit: null },
+    ]);
+    expect(s.catch).toEqual([1, 2]);
+    expect(unwrap(parseSeriesCsv("year,count,catch_kg\n2000,10,5\n2001,11,6\n")).catch).toEqual([5, 6]);
+  });
+
+  it("refuses a catch-like column it does not recognise, naming it and the names it reads", () => {
+    for (const header of ["landings", "Harvest", "catch_total_kg", "releases", "se"]) {
+      const r = parseSeriesCsv(`year,count,${header}\n2000,10,5\n2001,11,6\n`);
+      expect(r.ok || r.issue, header).toEqual({
+        code: "csv_unrecognised_column",
+        column: header,
+        allowed: ["catch", "stocking", "cv"],
+      });
+    }
+    // A plain further index is still read as one.
+    expect(unwrap(parseSeriesCsv("year,count,trawl\n2000,10,5\n2001,11,6\n")).indices.trawl).toEqual([5, 6]);
+  });
+});
