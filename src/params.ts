@@ -136,12 +136,6 @@ export function defaultValue(info: ParamInfo, K?: number): number {
   return K !== undefined && info.defaultTimesK !== undefined ? info.defaultTimesK * K : info.default;
 }
 
-/** A setting's usual sweep range, in its own unit (abundance settings scaled by K). */
-export function sweepRange(info: ParamInfo, K: number): [number, number] {
-  const f = isAbundanceKind(info.unitKind) ? K : 1;
-  return [info.sweep[0] * f, info.sweep[1] * f];
-}
-
 /** True when v lies in the setting's allowed range (and is whole, for whole-number settings). */
 export function inRange(info: ParamInfo, v: number): boolean {
   if (!Number.isFinite(v) || (info.integer && !Number.isInteger(v))) return false;

@@ -5,7 +5,7 @@ import { timingSafeEqual } from "node:crypto";
 import express, { type ErrorRequestHandler, type RequestHandler } from "express";
 import type { AppContext } from "./context.js";
 import { openApiDocument } from "./openapi.js";
-import { sendIssueProblem } from "./problem.js";
+import { sendIssue } from "./problem.js";
 import { exportRoutes } from "./routes-exports.js";
 import { jobRoutes } from "./routes-jobs.js";
 import { resultRoutes } from "./routes-results.js";
@@ -42,7 +42,7 @@ function bearer(token: string): RequestHandler {
     const got = Buffer.from((req.get("authorization") ?? "").replace(/^Bearer\s+/i, ""));
     if (got.length === expected.length && timingSafeEqual(got, expected)) return next();
     res.set("WWW-Authenticate", 'Bearer realm="yieldloop"');
-    sendIssueProblem(res, { code: "unauthorised" });
+    sendIssue(res, { code: "unauthorised" });
   };
 }
 
@@ -84,7 +84,7 @@ export function createApp(opts: AppOptions): express.Express {
   api.use(exportRoutes(opts));
   api.use(jobRoutes(opts));
   api.use((req, res) =>
-    sendIssueProblem(res, { code: "route_not_found", method: req.method, path: `${req.baseUrl}${req.path}` }),
+    sendIssue(res, { code: "route_not_found", method: req.method, path: `${req.baseUrl}${req.path}` }),
   );
   app.use("/api/v1", api);
   if (opts.staticDir && existsSync(opts.staticDir))
@@ -98,9 +98,7 @@ export function createApp(opts: AppOptions): express.Express {
         ),
     );
   }
-  app.use((req, res) =>
-    sendIssueProblem(res, { code: "route_not_found", method: req.method, path: req.path }),
-  );
+  app.use((req, res) => sendIssue(res, { code: "route_not_found", method: req.method, path: req.path }));
   app.use(errors);
   return app;
 }
@@ -115,18 +113,18 @@ const errors: ErrorRequestHandler = (
 ) => {
   if (res.headersSent) return res.end();
   if (err.type === "entity.parse.failed")
-    return sendIssueProblem(res, { code: "malformed_json", detail: jsonError(err.message) });
+    return sendIssue(res, { code: "malformed_json", detail: jsonError(err.message) });
   if (err.type === "entity.too.large")
-    return sendIssueProblem(res, {
+    return sendIssue(res, {
       code: "body_too_large",
       limit: err.limit !== undefined ? `at most ${err.limit} bytes` : "see the server's limits",
     });
   if (err.type === "encoding.unsupported" || err.type === "charset.unsupported")
-    return sendIssueProblem(res, { code: "unsupported_encoding" });
+    return sendIssue(res, { code: "unsupported_encoding" });
   if (typeof err.status === "number" && err.status >= 400 && err.status < 500)
-    return sendIssueProblem(res, { code: "bad_request" });
+    return sendIssue(res, { code: "bad_request" });
   process.stderr.write(`internal error: ${err.stack ?? err.message ?? String(err)}\n`);
-  sendIssueProblem(res, { code: "internal" });
+  sendIssue(res, { code: "internal" });
 };
 
 /** JSON.parse's complaint without the body it quotes (which could be long or private). */

@@ -1,7 +1,6 @@
 // What every route needs: the store, the job runner, the worker pool and the limits.
 import type { Request, Response } from "express";
 import type { z } from "zod";
-import type { Issue } from "../../src/issues.js";
 import type { Result } from "../../src/result.js";
 import { issueFromZod } from "../../src/zod-issue.js";
 import type { JobRunner } from "../jobs/job-runner.js";
@@ -45,11 +44,6 @@ export function core<T>(r: Result<T>, res: Response, prefix = ""): T | undefined
   if (r.ok) return r.value;
   sendProblem(res, issueProblem(r.issue, prefix));
   return undefined;
-}
-
-/** Sends a core issue as a 422 problem. */
-export function sendIssue(res: Response, issue: Issue, prefix = ""): void {
-  sendProblem(res, issueProblem(issue, prefix));
 }
 
 /** limit and offset from the query string (defaults 100 and 0). */

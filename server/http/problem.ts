@@ -50,7 +50,7 @@ export function issueProblem(issue: Issue, prefix = ""): Problem {
 }
 
 /** Answers with the problem document of an issue. */
-export function sendIssueProblem(res: Response, issue: Issue, prefix = ""): void {
+export function sendIssue(res: Response, issue: Issue, prefix = ""): void {
   sendProblem(res, issueProblem(issue, prefix));
 }
 

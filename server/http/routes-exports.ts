@@ -17,8 +17,8 @@ import {
   type Table,
 } from "../export/tables.js";
 import type { ResultKind } from "../store/repository.js";
-import { core, parseWith, sendIssue, type AppContext } from "./context.js";
-import { notFound, sendProblem } from "./problem.js";
+import { core, parseWith, type AppContext } from "./context.js";
+import { notFound, sendIssue, sendProblem } from "./problem.js";
 import { parseScenarioSpec, scenarioOnly } from "./scenario-input.js";
 import { z } from "zod";
 

@@ -5,10 +5,10 @@ import { Router, type Request, type Response } from "express";
 import { parseRule } from "../../src/policy/rule-spec.js";
 import type { Provenance, ResultKind } from "../store/repository.js";
 import type { JobOutcome } from "../jobs/job-runner.js";
-import { core, jsonObject, pageOf, parseWith, sendIssue, type AppContext } from "./context.js";
+import { core, jsonObject, pageOf, parseWith, type AppContext } from "./context.js";
 import { jsonSafe } from "./json-safe.js";
 import { JsonText, serialise } from "./json-text.js";
-import { notFound, sendProblem } from "./problem.js";
+import { notFound, sendIssue, sendProblem } from "./problem.js";
 import {
   contentHash,
   scenarioFrom,

@@ -8,7 +8,7 @@
 import { Worker } from "node:worker_threads";
 import type { Issue } from "../../src/issues.js";
 import { TurnBatch } from "../turn-batch.js";
-import type { QuickAnswer, QuickRequest, QuickTask } from "./quick-tasks.js";
+import type { QuickAnswer, QuickRequest } from "./quick-tasks.js";
 
 export type QuickResult = { ok: true; json: string } | { ok: false; issue: Issue };
 
@@ -19,14 +19,13 @@ export interface QuickAnalyses {
 }
 
 interface Pending {
-  readonly task: QuickTask;
+  readonly task: QuickRequest;
   resolve(r: QuickResult): void;
   reject(e: Error): void;
 }
 
 export function startQuickAnalyses(): QuickAnalyses {
   let worker: Worker | null = null;
-  let nextId = 1;
   let closed = false;
   // Batches sent and not yet answered, in order (the thread answers them in order).
   const inFlight: Pending[][] = [];
@@ -63,9 +62,7 @@ export function startQuickAnalyses(): QuickAnalyses {
   return {
     run(request) {
       if (closed) return Promise.reject(new Error("the quick-analysis thread is closed"));
-      return new Promise<QuickResult>((resolve, reject) =>
-        batches.add({ task: { ...request, id: nextId++ }, resolve, reject }),
-      );
+      return new Promise<QuickResult>((resolve, reject) => batches.add({ task: request, resolve, reject }));
     },
     async close() {
       closed = true;

@@ -14,47 +14,42 @@ export type QuickRequest =
   /** `fit` is a stored model comparison (its `fits` are read). */
   | { readonly kind: "robust"; readonly scenario: unknown; readonly fit: unknown };
 
-export type QuickTask = QuickRequest & { readonly id: number };
-
+/** The answer to one task; a batch's answers come back in the order of its tasks. */
 export type QuickAnswer =
-  | { readonly id: number; readonly ok: true; readonly json: string }
-  | { readonly id: number; readonly ok: false; readonly issue: Issue }
-  | { readonly id: number; readonly ok: false; readonly error: string };
+  | { readonly ok: true; readonly json: string }
+  | { readonly ok: false; readonly issue: Issue }
+  | { readonly ok: false; readonly error: string };
 
 // A stability analysis, a margin and a robust verdict are plain numbers, strings and arrays,
 // so JSON.stringify writes them whole (a test checks all three).
-export function runQuickTask(t: QuickTask): QuickAnswer {
+export function runQuickTask(t: QuickRequest): QuickAnswer {
   const sc = parseScenario(t.scenario);
-  if (!sc.ok) return { id: t.id, ok: false, issue: sc.issue };
-  if (t.kind === "stability")
-    return { id: t.id, ok: true, json: JSON.stringify(analyseStability(sc.value.loop)) };
+  if (!sc.ok) return { ok: false, issue: sc.issue };
+  if (t.kind === "stability") return { ok: true, json: JSON.stringify(analyseStability(sc.value.loop)) };
   if (t.kind === "margin") {
     const m = stabilityMargin(sc.value.model, sc.value.rule, t.parameter);
-    return m.ok
-      ? { id: t.id, ok: true, json: JSON.stringify(m.value) }
-      : { id: t.id, ok: false, issue: m.issue };
+    return m.ok ? { ok: true, json: JSON.stringify(m.value) } : { ok: false, issue: m.issue };
   }
   const models = fittedModels(t.fit);
-  if (!models.ok) return { id: t.id, ok: false, issue: models.issue };
+  if (!models.ok) return { ok: false, issue: models.issue };
   const v = robustVerdict(
     models.value.map((m) => ({ model: m.model, weight: m.weight })),
     sc.value.rule,
   );
-  if (!v.ok) return { id: t.id, ok: false, issue: v.issue };
+  if (!v.ok) return { ok: false, issue: v.issue };
   return {
-    id: t.id,
     ok: true,
     json: JSON.stringify({ ...v.value, models: models.value.map((m) => m.label) }),
   };
 }
 
 /** A batch of tasks, each answered (an exception becomes that task's error, not the batch's). */
-export function runQuickBatch(batch: readonly QuickTask[]): QuickAnswer[] {
+export function runQuickBatch(batch: readonly QuickRequest[]): QuickAnswer[] {
   return batch.map((task) => {
     try {
       return runQuickTask(task);
     } catch (e) {
-      return { id: task.id, ok: false, error: e instanceof Error ? (e.stack ?? e.message) : String(e) };
+      return { ok: false, error: e instanceof Error ? (e.stack ?? e.message) : String(e) };
     }
   });
 }

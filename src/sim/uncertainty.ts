@@ -116,11 +116,10 @@ export const UNCERTAINTY_SETTINGS = {
 } as const satisfies Record<string, ParamInfo>;
 
 const s = (name: keyof typeof UNCERTAINTY_SETTINGS) => numberSchema(UNCERTAINTY_SETTINGS[name]);
-const int = s;
 
 export const uncertaintySchema = z.strictObject({
-  replicates: int("replicates"),
-  seed: int("seed"),
+  replicates: s("replicates"),
+  seed: s("seed"),
   processSd: s("processSd").default(0),
   processAutocorrelation: s("processAutocorrelation").default(0),
   observationSd: s("observationSd").default(0),
@@ -134,7 +133,7 @@ export const uncertaintySchema = z.strictObject({
       z.strictObject({
         mean: z.record(z.string(), z.number()),
         covariance: z.array(z.array(z.number())),
-        count: int("count").default(1000),
+        count: s("count").default(1000),
       }),
     ])
     .optional()
