@@ -6,6 +6,7 @@ import { parseSeriesCsv } from "../../src/fit/series.js";
 import { FAMILY_IDS, type FamilyId } from "../../src/models/families.js";
 import { describeIssue, type Issue } from "../../src/issues.js";
 import { stabilityMargin } from "../../src/equilibria/margin.js";
+import { parameterAxis } from "../../src/equilibria/parameter-path.js";
 import { analyseStability } from "../../src/equilibria/stability.js";
 import { RULE_CATALOGUE } from "../../src/policy/rule-catalogue.js";
 import { toCsv, type Cell } from "../export/csv.js";
@@ -146,6 +147,9 @@ export function checkCommand(file: string, o: CommonOptions): void {
   const { model, rule, loop } = sf.scenario;
   const a = analyseStability(loop);
   const m = stabilityMargin(model, rule, RULE_CATALOGUE[rule.kind].main);
+  // The words for the setting, from the catalogue (the path stays beside them for scripts).
+  const axis = parameterAxis(model, rule, RULE_CATALOGUE[rule.kind].main);
+  const marginLabel = axis.ok ? axis.value.info.label : RULE_CATALOGUE[rule.kind].main;
   const table: Table = {
     header: ["equilibrium (stock units)", "verdict", "dominant |λ|", "return time (years)", "period (years)"],
     rows: a.equilibria.map((e) => [
@@ -170,7 +174,7 @@ export function checkCommand(file: string, o: CommonOptions): void {
           ? `no change up to ${fmt(s.searchedTo)}`
           : `changes at ${fmt(s.boundary)} (${s.kind})`;
       lines.push(
-        `Stability margin in ${m.value.parameter} (now ${fmt(m.value.current)}): raising it ${side(m.value.increase)}; lowering it ${side(m.value.decrease)}.`,
+        `Stability margin in the ${marginLabel} (${m.value.parameter}, now ${fmt(m.value.current)}): raising it ${side(m.value.increase)}; lowering it ${side(m.value.decrease)}.`,
       );
     }
     lines.push("", CAUTION);
