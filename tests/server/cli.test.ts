@@ -23,7 +23,7 @@ describe("yieldloop command line", { timeout: 60_000 }, () => {
     const r = run("check", demo("scenarios/skerra-deer.json"));
     expect(r.status).toBe(0);
     expect(r.stdout).toMatch(/Operating equilibrium 2,006: stable \(monotone return\)/);
-    expect(r.stdout).toMatch(/Stability margin in rule\.quota/);
+    expect(r.stdout).toMatch(/Stability margin in the annual quota Q \(rule\.quota, now 180\)/);
     expect(r.stdout).toMatch(/management authority/);
   });
   it("project --json --out: JSON on stdout, the per-year table as RFC 4180 CSV", () => {
